@@ -1,0 +1,58 @@
+// FlightState: the reconstructed flight, one row per kept sample, in each sample's own local NED frame.
+import type { LogWarning } from '../log/flightLog.js';
+
+/** Where the wind used for a sample came from. */
+export type WindSource = 'given' | 'table' | 'log-air-data' | 'turn-fit' | 'calm';
+
+/** One wind estimate (from direction true, speed) with its validity window and 1-sigma uncertainty. */
+export interface WindEstimate {
+  fromDegTrue: number;
+  speedMs: number;
+  source: WindSource;
+  /** Window of samples (UTC seconds) the estimate rests on; NaN for a given wind. */
+  t0: number;
+  t1: number;
+  altM: number;
+  sigmaMs: number;
+  /** Estimated true airspeed from the same fit (turn fits), NaN otherwise. */
+  tasMs: number;
+  /** Degrees of air-vector turn covered by a turn fit, NaN otherwise. */
+  arcDeg: number;
+}
+
+/**
+ * Columns, all of length n. Velocities and accelerations are NED at each sample [m/s, m/s²].
+ * Angles in degrees: track/heading true in [0, 360), bank right wing down +, pitch nose up +,
+ * turn rate right +. accelLongMs2 is along the nose, forward +.
+ */
+export interface FlightState {
+  n: number;
+  t: Float64Array;
+  lat: Float64Array;
+  lon: Float64Array;
+  altM: Float64Array;
+  velN: Float64Array;
+  velE: Float64Array;
+  velD: Float64Array;
+  accN: Float64Array;
+  accE: Float64Array;
+  accD: Float64Array;
+  /** 1-sigma of the horizontal acceleration estimate [m/s²]. */
+  accSigmaMs2: Float64Array;
+  gsMs: Float64Array;
+  trackDegTrue: Float64Array;
+  windN: Float64Array;
+  windE: Float64Array;
+  tasMs: Float64Array;
+  headingDegTrue: Float64Array;
+  bankDeg: Float64Array;
+  pitchDeg: Float64Array;
+  turnRateDps: Float64Array;
+  accelLongMs2: Float64Array;
+  /** Segment id per sample: a new segment starts after each gap. */
+  segment: Int32Array;
+  /** Index of the FlightLog row each sample came from. */
+  logRow: Int32Array;
+  winds: WindEstimate[];
+  warnings: LogWarning[];
+}
