@@ -27,6 +27,17 @@ export interface LogHealth {
   truncated: boolean;
 }
 
+/**
+ * Counts a format reader hands to the cleaner: records it saw (sample records: track points, data rows,
+ * fixes), records it dropped itself as unusable (each also reported in a LogWarning), and whether the
+ * input stopped before its proper end (cut off, or broken so that reading had to stop).
+ */
+export interface ReaderCounts {
+  recordsRead: number;
+  recordsDropped: number;
+  truncated: boolean;
+}
+
 /** Text fields a log or an option may carry (names, comments). Never markup: escape before display. */
 export interface LogMeta {
   name?: string;
@@ -49,6 +60,8 @@ export interface FlightLog {
     warnings: LogWarning[];
     meta: LogMeta;
     altDatum: 'ellipsoid' | 'msl' | 'pressure' | 'unknown';
+    /** What the reader saw before cleaning (optional; set by the importers, read by cleanLog). */
+    reader?: ReaderCounts;
   };
   t: Float64Array;
   lat: Float64Array;

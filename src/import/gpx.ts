@@ -1,0 +1,232 @@
+// GPX 1.1 (and 1.0) track reader over the saxes streaming XML parser: trk/trkseg/trkpt to FlightLog columns.
+//
+// Source: GPX 1.1 Schema Documentation, topografix.com/GPX/1/1 (gpx.xsd). What this reader relies on:
+// - "all coordinates are relative to the WGS84 datum. All measurements are in metric units."
+// - trkpt is a wptType with attributes lat (latitudeType, -90.0 <= value <= 90.0) and
+//   lon (longitudeType, -180.0 <= value < 180.0), "Decimal degrees, WGS84 datum".
+// - <ele> "Elevation (in meters) of the point." The schema does not name the vertical datum. Its
+//   <geoidheight> ("Height (in meters) of geoid (mean sea level) above WGS84 earth ellipsoid. As defined
+//   in NMEA GGA message") implies receivers write the GGA altitude, which is above mean sea level; so we
+//   record altDatum 'msl' (an assumption, common practice of receivers, not a schema rule).
+// - <time> "Date and time in are in Univeral Coordinated Time (UTC), not local time! Conforms to ISO 8601
+//   specification for date/time representation. Fractional seconds are allowed for millisecond timing in
+//   tracklogs." A time without a zone designator is therefore read as UTC.
+// - trkseg: "A Track Segment holds a list of Track Points which are logically connected in order."
+//   All segments of all tracks are read, in file order; the cleaner sorts by time.
+// A broken document: XML 1.0 (W3C, 5th ed.) §1.2 says that after a fatal (well-formedness) error the
+// processor "MUST NOT continue normal processing", so reading stops at the first error and the flight is
+// analysed up to the last complete track point before it, with a warning naming the line.
+import { SaxesParser, type SaxesTagPlain } from 'saxes';
+import { ParseError } from '../errors.js';
+import type { FlightLog, LogWarning } from '../log/flightLog.js';
+import { LineTally, plural, pushTally } from '../log/logWarnings.js';
+import { parseIsoDateTime } from './isoTime.js';
+import { LogBuilder } from './logBuilder.js';
+import { parseDecimal } from './parseNumber.js';
+import { toPlainText } from './plainText.js';
+
+/** Thrown from the saxes error handler to stop at the first well-formedness error. */
+class StopAtXmlError extends Error {}
+
+function localName(name: string): string {
+  const colon = name.indexOf(':');
+  return colon < 0 ? name : name.slice(colon + 1);
+}
+
+function stripPosition(message: string): string {
+  // saxes prefixes "line:column: " to its messages.
+  return message.replace(/^(?:[^:]*:)?\d+:\d+:\s*/, '');
+}
+
+/** Text children collected from the current track point. */
+interface PointText {
+  line: number;
+  lat: number;
+  lon: number;
+  ele?: string;
+  time?: string;
+}
+
+/**
+ * Reads the track points of a GPX 1.1 (or 1.0) document into a FlightLog (format 'gpx').
+ * t from <time> (UTC), lat/lon [deg WGS-84] from the attributes, altM [m] from <ele> (NaN when absent),
+ * line = 1-based line of each <trkpt> tag. Points without <time> are dropped and reported with their lines.
+ * Track name/desc (else metadata name/desc) become meta.name/comment as plain text; `creator` meta.device.
+ * A document cut off or broken mid-way keeps its complete points and gets a warning naming the line
+ * (source.reader.truncated = true).
+ * @throws ParseError when the text is not a GPX document, or it has no timed track point.
+ */
+export function parseGpx(text: string, file: string): FlightLog {
+  const parser = new SaxesParser({ xmlns: false, position: true });
+  const rows = new LogBuilder();
+  const warnings: LogWarning[] = [];
+  const noTime = new LineTally();
+  const stack: string[] = [];
+  let rootSeen = false;
+  let rootClosed = false;
+  let version = '';
+  let creator = '';
+  let trackName: string | undefined;
+  let trackDesc: string | undefined;
+  let metaName: string | undefined;
+  let metaDesc: string | undefined;
+  let pointsSeen = 0;
+  let routeOrWaypoints = 0;
+  let lastCompleteLine = 0;
+  let point: PointText | undefined;
+  let tagStartLine = 1;
+  let capture: string | undefined;
+  let captured = '';
+  let xmlError: { message: string; line: number; atEnd: boolean } | undefined;
+  let atEnd = false;
+
+  parser.on('error', (err) => {
+    if (!xmlError) xmlError = { message: stripPosition(err.message), line: parser.line, atEnd };
+    throw new StopAtXmlError();
+  });
+  parser.on('opentagstart', () => {
+    tagStartLine = parser.line;
+  });
+  parser.on('opentag', (tag: SaxesTagPlain) => {
+    const name = localName(tag.name);
+    const parent = stack.length > 0 ? stack[stack.length - 1] : '';
+    if (!rootSeen) {
+      rootSeen = true;
+      if (name !== 'gpx') {
+        throw new ParseError(`the XML document's root element is <${tag.name}>, not <gpx>`, {
+          line: tagStartLine,
+          hint: 'expected a GPX 1.1 track log',
+        });
+      }
+      version = String(tag.attributes.version ?? '');
+      creator = String(tag.attributes.creator ?? '');
+    }
+    stack.push(name);
+    if (name === 'trkpt' && parent === 'trkseg') {
+      pointsSeen++;
+      point = {
+        line: tagStartLine,
+        lat: parseDecimal(tag.attributes.lat as string | undefined),
+        lon: parseDecimal(tag.attributes.lon as string | undefined),
+      };
+      return;
+    }
+    if (name === 'rtept' || (name === 'wpt' && parent === 'gpx')) routeOrWaypoints++;
+    if (point && parent === 'trkpt' && (name === 'ele' || name === 'time')) {
+      capture = name;
+      captured = '';
+      return;
+    }
+    const grand = stack.length > 2 ? stack[stack.length - 3] : '';
+    if ((name === 'name' || name === 'desc') && ((parent === 'trk' && grand === 'gpx') || parent === 'metadata')) {
+      capture = `${parent}/${name}`;
+      captured = '';
+    }
+  });
+  const onText = (chunk: string) => {
+    if (capture !== undefined) captured += chunk;
+  };
+  parser.on('text', onText);
+  parser.on('cdata', onText);
+  parser.on('closetag', (tag: SaxesTagPlain) => {
+    const name = localName(tag.name);
+    stack.pop();
+    if (capture !== undefined) {
+      if (point && capture === 'ele') point.ele = captured;
+      else if (point && capture === 'time') point.time = captured;
+      else if (capture === 'trk/name' && trackName === undefined) trackName = toPlainText(captured);
+      else if (capture === 'trk/desc' && trackDesc === undefined) trackDesc = toPlainText(captured);
+      else if (capture === 'metadata/name' && metaName === undefined) metaName = toPlainText(captured);
+      else if (capture === 'metadata/desc' && metaDesc === undefined) metaDesc = toPlainText(captured);
+      capture = undefined;
+    }
+    if (name === 'trkpt' && point && stack[stack.length - 1] === 'trkseg') {
+      lastCompleteLine = parser.line;
+      if (point.time === undefined || point.time.trim() === '') noTime.add(point.line);
+      else {
+        const ele = parseDecimal(point.ele);
+        // A <time> that does not parse becomes NaN here; the cleaner drops and reports it with its line.
+        rows.addRow(parseIsoDateTime(point.time, 0), point.lat, point.lon, ele, point.line);
+      }
+      point = undefined;
+    }
+    if (stack.length === 0) rootClosed = true;
+  });
+
+  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+  try {
+    parser.write(body);
+    atEnd = true;
+    parser.close();
+  } catch (err) {
+    if (!(err instanceof StopAtXmlError)) throw err;
+  }
+
+  const incompletePoint = point !== undefined ? 1 : 0;
+  const truncated = xmlError !== undefined && !rootClosed;
+  if (!rootSeen) {
+    throw new ParseError('no XML element found', {
+      line: xmlError?.line,
+      hint: 'expected a GPX 1.1 document starting with <gpx>',
+    });
+  }
+  if (xmlError && rows.length === 0) {
+    throw new ParseError(`the GPX file is not well-formed XML: ${xmlError.message}`, {
+      line: xmlError.line,
+      hint: 'no complete track point comes before this place',
+    });
+  }
+
+  if (xmlError && truncated) {
+    const cut = point ? `; the track point begun at line ${point.line} is incomplete and was left out` : '';
+    const what = xmlError.atEnd
+      ? `The file ends before the GPX document is complete (line ${xmlError.line}: ${xmlError.message}): it was probably cut off while being written`
+      : `The XML is broken at line ${xmlError.line} (${xmlError.message}); reading stopped there`;
+    warnings.push({
+      code: xmlError.atEnd ? 'file-truncated' : 'xml-broken',
+      message: `${what}${cut}. The flight is analysed up to the last complete track point (ending on line ${lastCompleteLine}).`,
+      lines: [xmlError.line],
+    });
+  } else if (xmlError) {
+    warnings.push({
+      code: 'trailing-data',
+      message: `Unreadable data after the end of the GPX document at line ${xmlError.line} (${xmlError.message}) was ignored.`,
+      lines: [xmlError.line],
+    });
+  }
+  pushTally(warnings, 'no-time', `${plural(noTime.count, 'track point')} without a <time> left out`, noTime);
+
+  if (rows.length === 0) {
+    if (pointsSeen > 0) {
+      throw new ParseError(`none of the ${plural(pointsSeen, 'track point')} has a <time>`, {
+        hint: 'a track drawn in a planning tool has no times; use the track the receiver recorded in flight',
+      });
+    }
+    throw new ParseError('the GPX file has no track points (<trk>/<trkseg>/<trkpt>)', {
+      hint:
+        routeOrWaypoints > 0
+          ? 'it holds only a route or waypoints, which carry no flight times; use the recorded track'
+          : 'use the track log the receiver recorded in flight',
+    });
+  }
+  if (version !== '' && version !== '1.1' && version !== '1.0') {
+    warnings.push({ code: 'gpx-version', message: `GPX version "${version}" is not 1.1 or 1.0; read as GPX 1.1.` });
+  }
+
+  return rows.build({
+    format: 'gpx',
+    file,
+    warnings,
+    meta: {
+      name: trackName ?? metaName,
+      comment: trackDesc ?? metaDesc,
+      device: creator !== '' ? toPlainText(creator) : undefined,
+    },
+    altDatum: 'msl',
+    reader: {
+      recordsRead: pointsSeen,
+      recordsDropped: noTime.count + incompletePoint,
+      truncated,
+    },
+  });
+}
