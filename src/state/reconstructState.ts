@@ -1,0 +1,177 @@
+// The state stage: FlightLog → FlightState. Keep usable rows, split at gaps, smooth (RTS) per segment,
+// choose the wind, derive air data and pseudo-attitude. Pure: the log is not modified.
+import { OptionError } from '../errors.js';
+import type { FlightLog, LogWarning } from '../log/flightLog.js';
+import { computeAirData } from './airData.js';
+import type { FlightState } from './flightState.js';
+import { resolveWind } from './resolveWind.js';
+import { segmentAtGaps } from './segmentAtGaps.js';
+import { smoothTrackInSegments, type TrackColumns } from './smoothTrack.js';
+import { describeSpans, flaggedSpans, utcIso } from './timeSpans.js';
+import type { WindOption } from './windOption.js';
+
+/** Options of the state stage. Every field is optional; defaults are stated beside each. */
+export interface StateOptions {
+  /** Wind: calm, given (from, true; m/s), or auto. Default auto. */
+  wind?: WindOption;
+  /** Assumed angle of attack [deg] for pitch, −5..20. Default 3 [memory, PHYSICS.md §7]. */
+  aoaDeg?: number;
+  /** Gap threshold [s]. Default max(5 s, 5 × median sampling interval). */
+  gapS?: number;
+  /** Horizontal position 1-sigma per axis [m] where the log has no hAccM, 0.1..100. Default 3 [practice]. */
+  hSigmaM?: number;
+  /** Vertical position 1-sigma [m] where the log has no hAccM, 0.1..200. Default 5 [practice]. */
+  vSigmaM?: number;
+  /** 1-sigma of logged ground velocity per axis [m/s], 0.01..10. Default 0.3 (Doppler 0.05–0.2, PHYSICS.md §6, with margin). */
+  velSigmaMs?: number;
+  /** Jerk PSD of the horizontal axes [m²/s⁵], 0.001..1000. Default 1 (PHYSICS.md §6: 1–10 for light aircraft; 1 chosen on synthetic turns, see test/state). */
+  jerkPsdH?: number;
+  /** Jerk PSD of the vertical axis [m²/s⁵], 0.001..1000. Default 0.5 [practice]. */
+  jerkPsdV?: number;
+  /** Use the log's ground speed/track as velocity measurements. Default true. */
+  useLogVelocity?: boolean;
+  /** Innovation gating of fixes (chi-square 99 %). Default true. */
+  gate?: boolean;
+  /** TAS [m/s] below which attitude is undefined. Default 15. */
+  minAirspeedMs?: number;
+  /** Ground speed [m/s] below which attitude is undefined. Default 5. */
+  minGroundSpeedMs?: number;
+}
+
+function checkRange(name: string, v: number | undefined, lo: number, hi: number, dflt: number, unit: string): number {
+  if (v === undefined) return dflt;
+  if (!(Number.isFinite(v) && v >= lo && v <= hi)) throw new OptionError(name, `must be ${lo} to ${hi} ${unit}, got ${v}`);
+  return v;
+}
+
+/**
+ * Reconstructs the flight: one FlightState row per log row with finite time and position, in log order
+ * (rows with a time earlier than the previous kept row are dropped and counted). Velocities and
+ * accelerations are in each sample's NED frame. Throws OptionError for bad options; never throws for
+ * bad samples (they are dropped or become NaN, and counted in `warnings`).
+ * Example: reconstructState(log, { wind: { kind: 'given', fromDegTrue: 250, speedMs: 7.7 } }).
+ */
+export function reconstructState(log: FlightLog, opts: StateOptions = {}): FlightState {
+  const params = {
+    hSigmaM: checkRange('hSigmaM', opts.hSigmaM, 0.1, 100, 3, 'm'),
+    vSigmaM: checkRange('vSigmaM', opts.vSigmaM, 0.1, 200, 5, 'm'),
+    velSigmaMs: checkRange('velSigmaMs', opts.velSigmaMs, 0.01, 10, 0.3, 'm/s'),
+    jerkPsdH: checkRange('jerkPsdH', opts.jerkPsdH, 0.001, 1000, 1, 'm²/s⁵'),
+    jerkPsdV: checkRange('jerkPsdV', opts.jerkPsdV, 0.001, 1000, 0.5, 'm²/s⁵'),
+    useLogVelocity: opts.useLogVelocity ?? true,
+    gate: opts.gate ?? true,
+  };
+  const warnings: LogWarning[] = [];
+
+  // 1. Rows with a usable time and position, in time order.
+  const keep: number[] = [];
+  const noPosLines: number[] = [];
+  const backLines: number[] = [];
+  let lastT = -Infinity;
+  for (let i = 0; i < log.t.length; i++) {
+    const t = log.t[i], la = log.lat[i], lo = log.lon[i];
+    if (!(Number.isFinite(t) && Number.isFinite(la) && Number.isFinite(lo) && Math.abs(la) <= 90 && Math.abs(lo) <= 360)) {
+      noPosLines.push(log.line[i]);
+      continue;
+    }
+    if (t < lastT) {
+      backLines.push(log.line[i]);
+      continue;
+    }
+    lastT = t;
+    keep.push(i);
+  }
+  if (noPosLines.length > 0) warnings.push({ code: 'state-no-position', message: `${noPosLines.length} record(s) without a usable time or position were left out`, lines: noPosLines.slice(0, 100), count: noPosLines.length });
+  if (backLines.length > 0) warnings.push({ code: 'state-time-backwards', message: `${backLines.length} record(s) earlier than the record before them were left out`, lines: backLines.slice(0, 100), count: backLines.length });
+  const rows = Int32Array.from(keep);
+  const n = rows.length;
+  const pick = (col: Float64Array | undefined): Float64Array | undefined => {
+    if (!col) return undefined;
+    const out = new Float64Array(n);
+    for (let j = 0; j < n; j++) out[j] = col[rows[j]];
+    return out;
+  };
+  const cols: TrackColumns = {
+    t: pick(log.t)!, lat: pick(log.lat)!, lon: pick(log.lon)!, altM: pick(log.altM)!,
+    hAccM: pick(log.hAccM), gsMs: pick(log.gsMs), trackDegTrue: pick(log.trackDegTrue),
+  };
+  const lineOf = (j: number): number => log.line[rows[j]];
+
+  // 2. Segments at gaps; nothing is bridged.
+  const seg = segmentAtGaps(cols.t, opts.gapS);
+  if (seg.gaps.length > 0) {
+    warnings.push({
+      code: 'state-gap',
+      message: `${seg.gaps.length} gap(s) longer than ${seg.thresholdS.toFixed(1)} s: the flight is split there and nothing is invented across (${describeSpans(seg.gaps)})`,
+      count: seg.gaps.length,
+      lines: Array.from(seg.starts.subarray(1), (j) => lineOf(j)),
+    });
+  }
+
+  // 3. Smoothing.
+  const sm = smoothTrackInSegments(cols, seg.starts, params);
+  pushFlagWarning(warnings, sm.posSpike, cols.t, lineOf, 'state-position-spike', (k) => `${k} position fix(es) far off the smoothed track were skipped as spikes`);
+  pushFlagWarning(warnings, sm.posRejected, cols.t, lineOf, 'state-fix-gated', (k) => `${k} position fix(es) outside the 99 % innovation gate were not used (about 1 % of good fixes fall outside by chance)`);
+  pushFlagWarning(warnings, sm.posInflated, cols.t, lineOf, 'state-model-mismatch', (k) => `${k} fix(es) after runs of skipped fixes were used with inflated noise (the track jumped or the motion model did not fit)`);
+  pushFlagWarning(warnings, sm.velRejected, cols.t, lineOf, 'state-velocity-spike', (k) => `${k} logged ground-speed/track value(s) disagreeing with the positions were skipped`);
+  if (sm.noAltitudeSegments.length > 0) warnings.push({ code: 'state-no-altitude', message: `${sm.noAltitudeSegments.length} segment(s) without altitude: flight taken level there`, count: sm.noAltitudeSegments.length });
+  if (sm.shortSegments.length > 0) warnings.push({ code: 'state-short-segment', message: `${sm.shortSegments.length} segment(s) with fewer than 3 fixes: no velocity there`, count: sm.shortSegments.length });
+
+  // 4. Wind, 5. air data.
+  const wind = resolveWind(opts.wind ?? { kind: 'auto' }, n);
+  warnings.push(...wind.warnings);
+  const air = computeAirData(
+    { velN: sm.velN, velE: sm.velE, velD: sm.velD, accN: sm.accN, accE: sm.accE, accD: sm.accD, windN: wind.windN, windE: wind.windE },
+    { aoaDeg: opts.aoaDeg, minAirspeedMs: opts.minAirspeedMs, minGroundSpeedMs: opts.minGroundSpeedMs },
+  );
+  let nLow = 0;
+  for (let j = 0; j < n; j++) nLow += air.lowSpeed[j];
+  if (nLow > 0) {
+    const spans = flaggedSpans(air.lowSpeed, cols.t, 2 * seg.thresholdS);
+    warnings.push({ code: 'state-low-speed', message: `${nLow} sample(s) too slow for heading and bank (taxi or stationary): left undefined (${describeSpans(spans)})`, count: nLow });
+  }
+
+  return {
+    n,
+    t: cols.t,
+    lat: sm.lat,
+    lon: sm.lon,
+    altM: sm.altM,
+    velN: sm.velN,
+    velE: sm.velE,
+    velD: sm.velD,
+    accN: sm.accN,
+    accE: sm.accE,
+    accD: sm.accD,
+    accSigmaMs2: sm.accSigmaMs2,
+    gsMs: air.gsMs,
+    trackDegTrue: air.trackDegTrue,
+    windN: wind.windN,
+    windE: wind.windE,
+    tasMs: air.tasMs,
+    headingDegTrue: air.headingDegTrue,
+    bankDeg: air.bankDeg,
+    pitchDeg: air.pitchDeg,
+    turnRateDps: air.turnRateDps,
+    accelLongMs2: air.accelLongMs2,
+    segment: seg.segment,
+    logRow: rows,
+    winds: wind.winds,
+    warnings,
+  };
+}
+
+function pushFlagWarning(
+  warnings: LogWarning[],
+  flag: Uint8Array,
+  t: Float64Array,
+  lineOf: (j: number) => number,
+  code: string,
+  text: (k: number) => string,
+): void {
+  const lines: number[] = [];
+  for (let j = 0; j < flag.length; j++) if (flag[j] !== 0) lines.push(lineOf(j));
+  if (lines.length === 0) return;
+  const first = t[flag.indexOf(1)];
+  warnings.push({ code, message: `${text(lines.length)}, first at ${utcIso(first)}`, lines: lines.slice(0, 200), count: lines.length });
+}

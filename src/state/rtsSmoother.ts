@@ -1,0 +1,342 @@
+// Rauch–Tung–Striebel fixed-interval smoother over a constant-acceleration (white-jerk) model, one
+// independent filter per axis, irregular time steps, position and velocity measurements, joint innovation
+// gating across the axes of one fix. Hand-written scalar 3×3 algebra on typed arrays; no object per sample.
+import { OptionError } from '../errors.js';
+
+/** Chi-square 99 % quantiles for 1, 2, 3 degrees of freedom (index = dof). PHYSICS.md §6 / check 30. */
+export const CHI2_99 = [NaN, 6.635, 9.21, 11.345] as const;
+
+/** Chi-square 99.99 % quantiles for 1, 2, 3 dof: a gated fix this far off the smoothed track is a spike. */
+export const CHI2_9999 = [NaN, 15.137, 18.421, 21.108] as const;
+
+/** One axis of measurements. Arrays have the length of the time column; NaN marks "no measurement". */
+export interface WhiteJerkAxis {
+  /** Measured position [m]. */
+  pos: Float64Array;
+  /** Variance of each position measurement [m²] (> 0 where pos is finite). */
+  posVar: Float64Array;
+  /** Measured velocity [m/s] (e.g. GPS Doppler), optional. */
+  vel?: Float64Array;
+  /** Variance of each velocity measurement [m²/s²]. */
+  velVar?: Float64Array;
+  /** Jerk power spectral density q [m²/s⁵] of the white-jerk model. */
+  jerkPsd: number;
+}
+
+export interface RtsOptions {
+  /** Gate fixes by d² = Σ ν²/S against the 99 % chi-square quantile of the fix's dimension. Default true. */
+  gate?: boolean;
+  /** After this many consecutive gated position fixes, the next is taken with R inflated. Default 5. */
+  maxRejectRun?: number;
+  /** Prior 1-sigma of the velocity [m/s] and of the acceleration [m/s²] at the first sample. */
+  velPriorSigmaMs?: number;
+  accPriorSigmaMs2?: number;
+}
+
+/** Smoothed state of one axis: p [m], v [m/s], a [m/s²] and their marginal variances. */
+export interface RtsAxisResult {
+  p: Float64Array;
+  v: Float64Array;
+  a: Float64Array;
+  pVar: Float64Array;
+  vVar: Float64Array;
+  aVar: Float64Array;
+}
+
+export interface RtsResult {
+  axes: RtsAxisResult[];
+  /** 1 where the position fix was gated out (not used). */
+  posRejected: Uint8Array;
+  /**
+   * 1 where a gated fix also lies far off the smoothed track: leave-one-out d² = Σ (z − p_s)²/(R + P_s)
+   * above the 99.99 % quantile. Good fixes trip the 99 % gate 1 % of the time by chance; spikes do not
+   * come back to the track.
+   */
+  posSpike: Uint8Array;
+  /** 1 where the position fix was taken with an inflated R after a run of rejections. */
+  posInflated: Uint8Array;
+  /** 1 where the velocity measurement was gated out. */
+  velRejected: Uint8Array;
+}
+
+/**
+ * Rauch–Tung–Striebel fixed-interval smoother (Rauch, Tung & Striebel, AIAA J. 3(8), 1965), white-jerk
+ * (continuous Wiener-process acceleration) model per axis (Bar-Shalom, Li & Kirubarajan 2001, ch. 6).
+ * State x = [p, v, a]; per step of length T (irregular):
+ *   F = [[1, T, T²/2], [0, 1, T], [0, 0, 1]],
+ *   Q = q·[[T⁵/20, T⁴/8, T³/6], [T⁴/8, T³/3, T²/2], [T³/6, T²/2, T]].
+ * Forward Kalman filter with scalar updates (H = [1 0 0] for position, [0 1 0] for velocity); backward pass
+ *   C_k = P_k|k Fᵀ P_k+1|k⁻¹, x_k|N = x_k|k + C_k (x_k+1|N − x_k+1|k), P_k|N = P_k|k + C_k (P_k+1|N − P_k+1|k) C_kᵀ.
+ * Gating (PHYSICS.md §6): the position fix of a sample (all axes with a finite value) is skipped when
+ * d² = Σ ν²/S exceeds the 99 % chi-square quantile for that many dof; after `maxRejectRun` consecutive
+ * skips, fixes are taken with R inflated so that d² sits on the gate (model mismatch, not outliers) until one
+ * passes the gate unaided.
+ * Velocity measurements are gated the same way (not inflated).
+ * `t` must be non-decreasing [s]; steps of 0 are allowed (two fixes at one instant).
+ * Throws OptionError for a non-positive jerk PSD or mismatched column lengths.
+ */
+export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts: RtsOptions = {}): RtsResult {
+  const n = t.length;
+  const m = axes.length;
+  const gate = opts.gate ?? true;
+  const maxRun = opts.maxRejectRun ?? 5;
+  const v0Var = (opts.velPriorSigmaMs ?? 150) ** 2;
+  const a0Var = (opts.accPriorSigmaMs2 ?? 10) ** 2;
+  for (const ax of axes) {
+    if (!(Number.isFinite(ax.jerkPsd) && ax.jerkPsd > 0)) throw new OptionError('jerkPsd', `must be a positive number of m²/s⁵, got ${ax.jerkPsd}`);
+    if (ax.pos.length !== n || ax.posVar.length !== n) throw new OptionError('rtsSmoothWhiteJerk', 'position columns must have the length of t');
+    if (ax.vel && (ax.vel.length !== n || !ax.velVar || ax.velVar.length !== n)) throw new OptionError('rtsSmoothWhiteJerk', 'velocity columns must have the length of t');
+  }
+  // Filtered state (3 per sample) and covariance (6 per sample: p00 p01 p02 p11 p12 p22) per axis.
+  const xf: Float64Array[] = [];
+  const pf: Float64Array[] = [];
+  const cur = new Float64Array(9 * m); // working x (3) + P (6) per axis
+  for (let j = 0; j < m; j++) {
+    xf.push(new Float64Array(3 * n));
+    pf.push(new Float64Array(6 * n));
+    const pos = axes[j].pos;
+    let p0 = 0;
+    for (let i = 0; i < n; i++) if (Number.isFinite(pos[i])) { p0 = pos[i]; break; }
+    const c = 9 * j;
+    cur[c] = p0;
+    cur[c + 3] = 1e8; // 10 km prior sigma: the first fix decides
+    cur[c + 6] = v0Var;
+    cur[c + 8] = a0Var;
+  }
+  const posRejected = new Uint8Array(n);
+  const posInflated = new Uint8Array(n);
+  const velRejected = new Uint8Array(n);
+  let run = 0;
+
+  for (let i = 0; i < n; i++) {
+    const T = i === 0 ? 0 : t[i] - t[i - 1];
+    if (T > 0) for (let j = 0; j < m; j++) predictInPlace(cur, 9 * j, T, axes[j].jerkPsd);
+
+    // Position fix, gated jointly over the axes that have a value.
+    let d2 = 0;
+    let dof = 0;
+    for (let j = 0; j < m; j++) {
+      const z = axes[j].pos[i];
+      if (!Number.isFinite(z)) continue;
+      const c = 9 * j;
+      const nu = z - cur[c];
+      d2 += (nu * nu) / (cur[c + 3] + axes[j].posVar[i]);
+      dof++;
+    }
+    if (dof > 0) {
+      const limit = CHI2_99[dof];
+      let scale = 1; // S multiplier applied through R
+      let use = true;
+      if (gate && d2 > limit) {
+        if (run >= maxRun) {
+          // A run this long is a jump or a model mismatch, not outliers: take fixes on the gate until one fits.
+          scale = d2 / limit;
+          posInflated[i] = 1;
+        } else {
+          use = false;
+          posRejected[i] = 1;
+          run++;
+        }
+      } else {
+        run = 0;
+      }
+      if (use) {
+        for (let j = 0; j < m; j++) {
+          const z = axes[j].pos[i];
+          if (!Number.isFinite(z)) continue;
+          const c = 9 * j;
+          const s = (cur[c + 3] + axes[j].posVar[i]) * scale;
+          updateInPlace(cur, c, 0, z - cur[c], s);
+        }
+      }
+    }
+
+    // Velocity measurement, gated jointly, never inflated.
+    d2 = 0;
+    dof = 0;
+    for (let j = 0; j < m; j++) {
+      const vel = axes[j].vel;
+      if (!vel || !Number.isFinite(vel[i])) continue;
+      const c = 9 * j;
+      const nu = vel[i] - cur[c + 1];
+      d2 += (nu * nu) / (cur[c + 6] + axes[j].velVar![i]);
+      dof++;
+    }
+    if (dof > 0) {
+      if (gate && d2 > CHI2_99[dof]) {
+        velRejected[i] = 1;
+      } else {
+        for (let j = 0; j < m; j++) {
+          const vel = axes[j].vel;
+          if (!vel || !Number.isFinite(vel[i])) continue;
+          const c = 9 * j;
+          updateInPlace(cur, c, 1, vel[i] - cur[c + 1], cur[c + 6] + axes[j].velVar![i]);
+        }
+      }
+    }
+
+    for (let j = 0; j < m; j++) {
+      const c = 9 * j;
+      const x = xf[j], P = pf[j];
+      const bx = 3 * i, bp = 6 * i;
+      x[bx] = cur[c]; x[bx + 1] = cur[c + 1]; x[bx + 2] = cur[c + 2];
+      P[bp] = cur[c + 3]; P[bp + 1] = cur[c + 4]; P[bp + 2] = cur[c + 5];
+      P[bp + 3] = cur[c + 6]; P[bp + 4] = cur[c + 7]; P[bp + 5] = cur[c + 8];
+    }
+  }
+
+  const out: RtsAxisResult[] = [];
+  for (let j = 0; j < m; j++) out.push(smoothBackward(t, xf[j], pf[j], axes[j].jerkPsd));
+  const posSpike = new Uint8Array(n);
+  for (let i = 0; i < n; i++) {
+    if (posRejected[i] === 0) continue;
+    let d2 = 0;
+    let dof = 0;
+    for (let j = 0; j < m; j++) {
+      const z = axes[j].pos[i];
+      if (!Number.isFinite(z)) continue;
+      const r = z - out[j].p[i];
+      d2 += (r * r) / (axes[j].posVar[i] + out[j].pVar[i]);
+      dof++;
+    }
+    if (dof > 0 && d2 > CHI2_9999[dof]) posSpike[i] = 1;
+  }
+  return { axes: out, posRejected, posSpike, posInflated, velRejected };
+}
+
+/** Kalman prediction over T [s] of the state at s[c..c+8] = x(3), P(6): x ← F x, P ← F P Fᵀ + Q. */
+function predictInPlace(s: Float64Array, c: number, T: number, q: number): void {
+  const h = 0.5 * T * T;
+  const x0 = s[c], x1 = s[c + 1], x2 = s[c + 2];
+  s[c] = x0 + T * x1 + h * x2;
+  s[c + 1] = x1 + T * x2;
+  const p00 = s[c + 3], p01 = s[c + 4], p02 = s[c + 5], p11 = s[c + 6], p12 = s[c + 7], p22 = s[c + 8];
+  // A = F P (rows 0 and 1 change), then A Fᵀ.
+  const a00 = p00 + T * p01 + h * p02;
+  const a01 = p01 + T * p11 + h * p12;
+  const a02 = p02 + T * p12 + h * p22;
+  const a11 = p11 + T * p12;
+  const a12 = p12 + T * p22;
+  const T2 = T * T, T3 = T2 * T;
+  s[c + 3] = a00 + T * a01 + h * a02 + q * (T3 * T2) / 20;
+  s[c + 4] = a01 + T * a02 + q * (T2 * T2) / 8;
+  s[c + 5] = a02 + q * T3 / 6;
+  s[c + 6] = a11 + T * a12 + q * T3 / 3;
+  s[c + 7] = a12 + q * T2 / 2;
+  s[c + 8] = p22 + q * T;
+}
+
+/** Scalar Kalman update of component `k` (0 = p, 1 = v) with innovation nu and innovation variance S. */
+function updateInPlace(s: Float64Array, c: number, k: 0 | 1, nu: number, S: number): void {
+  // Column k of P: P_0k, P_1k, P_2k.
+  const g0 = k === 0 ? s[c + 3] : s[c + 4];
+  const g1 = k === 0 ? s[c + 4] : s[c + 6];
+  const g2 = k === 0 ? s[c + 5] : s[c + 7];
+  const inv = 1 / S;
+  s[c] += g0 * inv * nu;
+  s[c + 1] += g1 * inv * nu;
+  s[c + 2] += g2 * inv * nu;
+  s[c + 3] -= g0 * g0 * inv;
+  s[c + 4] -= g0 * g1 * inv;
+  s[c + 5] -= g0 * g2 * inv;
+  s[c + 6] -= g1 * g1 * inv;
+  s[c + 7] -= g1 * g2 * inv;
+  s[c + 8] -= g2 * g2 * inv;
+}
+
+/** RTS backward pass for one axis over filtered states xf (3n) and covariances pf (6n). */
+function smoothBackward(t: Float64Array, xf: Float64Array, pf: Float64Array, q: number): RtsAxisResult {
+  const n = t.length;
+  const r: RtsAxisResult = {
+    p: new Float64Array(n),
+    v: new Float64Array(n),
+    a: new Float64Array(n),
+    pVar: new Float64Array(n),
+    vVar: new Float64Array(n),
+    aVar: new Float64Array(n),
+  };
+  if (n === 0) return r;
+  const k0 = n - 1;
+  let xs0 = xf[3 * k0], xs1 = xf[3 * k0 + 1], xs2 = xf[3 * k0 + 2];
+  let s00 = pf[6 * k0], s01 = pf[6 * k0 + 1], s02 = pf[6 * k0 + 2];
+  let s11 = pf[6 * k0 + 3], s12 = pf[6 * k0 + 4], s22 = pf[6 * k0 + 5];
+  const store = (k: number): void => {
+    r.p[k] = xs0;
+    r.v[k] = xs1;
+    r.a[k] = xs2;
+    r.pVar[k] = s00;
+    r.vVar[k] = s11;
+    r.aVar[k] = s22;
+  };
+  store(k0);
+  for (let k = n - 2; k >= 0; k--) {
+    const T = t[k + 1] - t[k];
+    const h = 0.5 * T * T;
+    const f0 = xf[3 * k], f1 = xf[3 * k + 1], f2 = xf[3 * k + 2];
+    const b = 6 * k;
+    const p00 = pf[b], p01 = pf[b + 1], p02 = pf[b + 2], p11 = pf[b + 3], p12 = pf[b + 4], p22 = pf[b + 5];
+    // Predicted x and P of step k+1 from the filtered values at k.
+    const xp0 = f0 + T * f1 + h * f2;
+    const xp1 = f1 + T * f2;
+    const xp2 = f2;
+    const a00 = p00 + T * p01 + h * p02;
+    const a01 = p01 + T * p11 + h * p12;
+    const a02 = p02 + T * p12 + h * p22;
+    const a11 = p11 + T * p12;
+    const a12 = p12 + T * p22;
+    const T2 = T * T, T3 = T2 * T;
+    const m00 = a00 + T * a01 + h * a02 + (q * T3 * T2) / 20;
+    const m01 = a01 + T * a02 + (q * T2 * T2) / 8;
+    const m02 = a02 + (q * T3) / 6;
+    const m11 = a11 + T * a12 + (q * T3) / 3;
+    const m12 = a12 + (q * T2) / 2;
+    const m22 = p22 + q * T;
+    // Inverse of the symmetric predicted covariance by cofactors.
+    const i00 = m11 * m22 - m12 * m12;
+    const i01 = m02 * m12 - m01 * m22;
+    const i02 = m01 * m12 - m02 * m11;
+    const i11 = m00 * m22 - m02 * m02;
+    const i12 = m01 * m02 - m00 * m12;
+    const i22 = m00 * m11 - m01 * m01;
+    const det = m00 * i00 + m01 * i01 + m02 * i02;
+    const id = 1 / det;
+    // B = P_f Fᵀ (general 3×3).
+    const b00 = p00 + T * p01 + h * p02, b01 = p01 + T * p02, b02 = p02;
+    const b10 = p01 + T * p11 + h * p12, b11 = p11 + T * p12, b12 = p12;
+    const b20 = p02 + T * p12 + h * p22, b21 = p12 + T * p22, b22 = p22;
+    // C = B · M⁻¹.
+    const c00 = (b00 * i00 + b01 * i01 + b02 * i02) * id;
+    const c01 = (b00 * i01 + b01 * i11 + b02 * i12) * id;
+    const c02 = (b00 * i02 + b01 * i12 + b02 * i22) * id;
+    const c10 = (b10 * i00 + b11 * i01 + b12 * i02) * id;
+    const c11 = (b10 * i01 + b11 * i11 + b12 * i12) * id;
+    const c12 = (b10 * i02 + b11 * i12 + b12 * i22) * id;
+    const c20 = (b20 * i00 + b21 * i01 + b22 * i02) * id;
+    const c21 = (b20 * i01 + b21 * i11 + b22 * i12) * id;
+    const c22 = (b20 * i02 + b21 * i12 + b22 * i22) * id;
+    // State.
+    const d0 = xs0 - xp0, d1 = xs1 - xp1, d2 = xs2 - xp2;
+    xs0 = f0 + c00 * d0 + c01 * d1 + c02 * d2;
+    xs1 = f1 + c10 * d0 + c11 * d1 + c12 * d2;
+    xs2 = f2 + c20 * d0 + c21 * d1 + c22 * d2;
+    // Covariance: P_f + C (P_s − M) Cᵀ, with D = P_s − M symmetric, E = C D.
+    const e00 = s00 - m00, e01 = s01 - m01, e02 = s02 - m02, e11 = s11 - m11, e12 = s12 - m12, e22 = s22 - m22;
+    const g00 = c00 * e00 + c01 * e01 + c02 * e02;
+    const g01 = c00 * e01 + c01 * e11 + c02 * e12;
+    const g02 = c00 * e02 + c01 * e12 + c02 * e22;
+    const g10 = c10 * e00 + c11 * e01 + c12 * e02;
+    const g11 = c10 * e01 + c11 * e11 + c12 * e12;
+    const g12 = c10 * e02 + c11 * e12 + c12 * e22;
+    const g20 = c20 * e00 + c21 * e01 + c22 * e02;
+    const g21 = c20 * e01 + c21 * e11 + c22 * e12;
+    const g22 = c20 * e02 + c21 * e12 + c22 * e22;
+    s00 = p00 + g00 * c00 + g01 * c01 + g02 * c02;
+    s01 = p01 + g00 * c10 + g01 * c11 + g02 * c12;
+    s02 = p02 + g00 * c20 + g01 * c21 + g02 * c22;
+    s11 = p11 + g10 * c10 + g11 * c11 + g12 * c12;
+    s12 = p12 + g10 * c20 + g11 * c21 + g12 * c22;
+    s22 = p22 + g20 * c20 + g21 * c21 + g22 * c22;
+    store(k);
+  }
+  return r;
+}

@@ -1,0 +1,115 @@
+// Frames against GeographicLib (geographiclib-geodesic 2.2, C. F. F. Karney, J. Geodesy 87, 2013) and
+// against the defining WGS-84 constants (NIMA TR8350.2 table 3.1).
+import geodesic from 'geographiclib-geodesic';
+import { describe, expect, it } from 'vitest';
+import { ecefToGeodetic, geodeticToEcef } from '../../src/geo/wgs84.js';
+import {
+  azimuthOfNedDeg,
+  ecefToGeodeticInto,
+  geodeticToEcefInto,
+  localAzimuthDistance,
+  nedOffsetM,
+  nedRotationInto,
+  rotateNedBetweenInto,
+} from '../../src/geo/localFrame.js';
+
+const geod = geodesic.Geodesic.WGS84;
+const angErr = (a: number, b: number): number => Math.abs((((a - b) % 360) + 540) % 360 - 180);
+
+describe('ECEF conversions', () => {
+  it('put (0, 0, 0) at (a, 0, 0) and the north pole at (0, 0, b) (WGS-84 a = 6378137, b = 6356752.3142 m, TR8350.2)', () => {
+    const out = new Float64Array(3);
+    geodeticToEcefInto(0, 0, 0, out, 0);
+    expect(out[0]).toBeCloseTo(6378137, 6);
+    expect(Math.abs(out[1]) + Math.abs(out[2])).toBeLessThan(1e-6);
+    geodeticToEcefInto(90, 0, 0, out, 0);
+    expect(out[2]).toBeCloseTo(6356752.3142, 3);
+  });
+  it('round-trip geodetic → ECEF → geodetic within 1e-9° and 1 mm from −89° to 89° and −500 m to 15 km', () => {
+    const out = new Float64Array(3);
+    for (let lat = -89; lat <= 89; lat += 7.3) {
+      for (const lon of [-179.9, -45, 0, 12.5, 179.9]) {
+        for (const h of [-500, 0, 3000, 15000]) {
+          geodeticToEcefInto(lat, lon, h, out, 0);
+          const back = new Float64Array(3);
+          ecefToGeodeticInto(out[0], out[1], out[2], back, 0);
+          expect(Math.abs(back[0] - lat)).toBeLessThan(1e-9);
+          expect(angErr(back[1], lon)).toBeLessThan(1e-9);
+          expect(Math.abs(back[2] - h)).toBeLessThan(1e-3);
+          // The allocation-free versions agree with the object versions of wgs84.ts.
+          const p = geodeticToEcef(lat, lon, h);
+          expect(Math.hypot(p.x - out[0], p.y - out[1], p.z - out[2])).toBeLessThan(1e-6);
+          const g = ecefToGeodetic(p);
+          expect(Math.abs(g.latDeg - back[0])).toBeLessThan(1e-9);
+        }
+      }
+    }
+  });
+});
+
+describe('local NED offsets against GeographicLib geodesics', () => {
+  it('give the geodesic azimuth within 0.01° and distance within 1e-4 relative out to 20 km', () => {
+    for (const [lat, lon] of [[52.1, -1.3], [-33.9, 151.2], [69.6, 18.9], [0.5, 100]]) {
+      for (const azi of [0, 37, 90, 145, 180, 233, 270, 333]) {
+        for (const s of [100, 2000, 20000]) {
+          const d = geod.Direct(lat, lon, azi, s);
+          const r = localAzimuthDistance(lat, lon, d.lat2!, d.lon2!);
+          expect(angErr(r.azimuthDeg, azi)).toBeLessThan(0.01);
+          expect(Math.abs(r.distanceM - s) / s).toBeLessThan(1e-4);
+        }
+      }
+    }
+  });
+  it('put a point 100 km away below the tangent plane by about s²/(2R) (≈ 785 m, R ≈ 6371 km)', () => {
+    const d = geod.Direct(52, 0, 90, 100000);
+    const [, , down] = nedOffsetM(52, 0, 0, d.lat2!, d.lon2!, 0);
+    expect(down).toBeGreaterThan(770);
+    expect(down).toBeLessThan(800);
+  });
+});
+
+describe('re-expressing a vector in another point\'s NED frame', () => {
+  it('turns a geodesic direction at A into the GeographicLib azimuth at B 300 km away (meridian convergence)', () => {
+    const out = new Float64Array(3);
+    const ra = new Float64Array(9), rb = new Float64Array(9);
+    for (const [lat, lon, azi] of [[55, 10, 90], [60, -20, 45], [-40, 170, 300], [10, 0, 10]]) {
+      const line = geod.DirectLine(lat, lon, azi, 300000);
+      const b = line.Position(300000);
+      // Direction of the geodesic at B, expressed in A's frame: the unit chord of a short step along it.
+      const b2 = line.Position(300001);
+      const e1 = new Float64Array(3), e2 = new Float64Array(3);
+      geodeticToEcefInto(b.lat2!, b.lon2!, 0, e1, 0);
+      geodeticToEcefInto(b2.lat2!, b2.lon2!, 0, e2, 0);
+      nedRotationInto(lat, lon, ra, 0);
+      const dx = e2[0] - e1[0], dy = e2[1] - e1[1], dz = e2[2] - e1[2];
+      const vN = ra[0] * dx + ra[1] * dy + ra[2] * dz;
+      const vE = ra[3] * dx + ra[4] * dy + ra[5] * dz;
+      const vD = ra[6] * dx + ra[7] * dy + ra[8] * dz;
+      // In A's frame the direction differs from azi2 by degrees; in B's own frame it is azi2.
+      nedRotationInto(b.lat2!, b.lon2!, rb, 0);
+      rotateNedBetweenInto(ra, 0, rb, 0, vN, vE, vD, out, 0);
+      expect(angErr(azimuthOfNedDeg(out[0], out[1]), b.azi2!)).toBeLessThan(0.001);
+      expect(Math.abs(out[2])).toBeLessThan(1e-3);
+      if (Math.abs(lat) > 30) expect(angErr(azimuthOfNedDeg(vN, vE), b.azi2!)).toBeGreaterThan(1);
+    }
+  });
+  it('is identity when both frames are the same point', () => {
+    const r = new Float64Array(9);
+    const out = new Float64Array(3);
+    nedRotationInto(47, 8, r, 0);
+    rotateNedBetweenInto(r, 0, r, 0, 1, 2, 3, out, 0);
+    expect(out[0]).toBeCloseTo(1, 14);
+    expect(out[1]).toBeCloseTo(2, 14);
+    expect(out[2]).toBeCloseTo(3, 14);
+  });
+});
+
+describe('azimuthOfNedDeg', () => {
+  it('is [0, 360) clockwise from north and NaN for a zero vector', () => {
+    expect(azimuthOfNedDeg(1, 0)).toBe(0);
+    expect(azimuthOfNedDeg(0, 1)).toBeCloseTo(90, 12);
+    expect(azimuthOfNedDeg(-1, -1e-18)).toBeCloseTo(180, 9);
+    expect(azimuthOfNedDeg(1, -1e-18)).toBeLessThan(360);
+    expect(azimuthOfNedDeg(0, 0)).toBeNaN();
+  });
+});
