@@ -5,6 +5,7 @@ import { parseCsv } from './csv.js';
 import { decodeText } from './decodeText.js';
 import { detectFormat } from './detectFormat.js';
 import { parseGpx } from './gpx.js';
+import { parseIgc } from './igc.js';
 
 /** Options common to all readers; each reader uses those that apply to it. */
 export interface ReadOptions {
@@ -53,6 +54,8 @@ export function parseLogBytes(bytes: Uint8Array, file: string, opts: ReadOptions
         headingRef: opts.headingRef,
         onProgress: opts.onProgress,
       });
+    case 'igc':
+      return parseIgc(decodeText(bytes), file, { date: opts.date });
     default:
       throw new ParseError(`this looks like a ${format.toUpperCase()} log, which this version cannot read yet`, {
         hint: 'export the flight as GPX or CSV',
