@@ -1,0 +1,36 @@
+// Escaping for the three places text goes into the page: HTML text/attributes, JSON data blocks, inline scripts.
+
+const HTML_ESCAPES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
+
+/**
+ * Escapes & < > " ' so that any text is shown as text in HTML element content and in quoted attribute
+ * values (OWASP XSS Prevention Cheat Sheet, rule #1 and #2 for quoted attributes).
+ */
+export function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (ch) => HTML_ESCAPES[ch]);
+}
+
+/**
+ * JSON for a `<script type="application/json">` block: `<`, `>` and `&` written as \u003c, \u003e,
+ * \u0026 so no `</script>` or `<!--` can appear (HTML Living Standard §4.12.1.3, restrictions for
+ * contents of script elements); U+2028/U+2029 escaped too. JSON.parse of the block gives the value back.
+ */
+export function jsonForScriptBlock(value: unknown): string {
+  return JSON.stringify(value)
+    .replace(/</g, '\\u003c')
+    .replace(/>/g, '\\u003e')
+    .replace(/&/g, '\\u0026')
+    .replace(/\u2028/g, '\\u2028')
+    .replace(/\u2029/g, '\\u2029');
+}
+
+/**
+ * Makes JavaScript source safe to inline in a classic `<script>`: every `<!--`, `<script` and
+ * `</script` (any case) gets its `<` written as the escape \x3C, which means the same character
+ * inside the string, template and regular-expression literals where such text can occur in valid code
+ * (HTML Living Standard §4.12.1.3). Such text outside a literal cannot occur in valid code; the
+ * browser tests are the check that the inlined libraries still run.
+ */
+export function inlineScriptSource(js: string): string {
+  return js.replace(/<(?=!--|\/?script)/gi, '\\x3C');
+}

@@ -1,0 +1,51 @@
+// loadReportAssets: reads the report template files and the chart library from disk (I/O edge).
+import { existsSync, readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { InputError } from '../errors.js';
+import type { ReportAssets } from './renderReport.js';
+
+/**
+ * The package root: the nearest folder above this module holding package.json. Works from src/report
+ * (vitest on the sources) and from dist/src/report (after tsc).
+ * @throws InputError when no package.json is found above the module
+ */
+export function packageRoot(fromUrl: string = import.meta.url): string {
+  let dir = dirname(fileURLToPath(fromUrl));
+  for (;;) {
+    if (existsSync(join(dir, 'package.json'))) return dir;
+    const up = dirname(dir);
+    if (up === dir) throw new InputError(fileURLToPath(fromUrl), 'no package.json above the report module', { hint: 'install compass-debrief as a package' });
+    dir = up;
+  }
+}
+
+function readText(path: string): string {
+  try {
+    return readFileSync(path, 'utf8');
+  } catch (e) {
+    throw new InputError(path, `cannot read a report asset: ${(e as Error).message}`, { hint: 'reinstall compass-debrief' });
+  }
+}
+
+/**
+ * Reads report-template/report.html, report.css, report.js and plotly.js-dist-min's plotly.min.js
+ * (resolved through Node's module resolution from this package).
+ * @param templateDir folder of the template files; defaults to <package root>/report-template
+ * @throws InputError naming the file that is missing or unreadable
+ */
+export function loadReportAssets(templateDir: string = join(packageRoot(), 'report-template')): ReportAssets {
+  let plotlyPath: string;
+  try {
+    plotlyPath = createRequire(import.meta.url).resolve('plotly.js-dist-min');
+  } catch {
+    throw new InputError('plotly.js-dist-min', 'the chart library is not installed', { hint: 'run npm install' });
+  }
+  return {
+    html: readText(join(templateDir, 'report.html')),
+    css: readText(join(templateDir, 'report.css')),
+    js: readText(join(templateDir, 'report.js')),
+    plotlyJs: readText(plotlyPath),
+  };
+}

@@ -1,0 +1,129 @@
+// renderReport: ReportModel + template assets → one self-contained, offline HTML page (a string).
+import { InputError } from '../errors.js';
+import { escapeHtml, inlineScriptSource, jsonForScriptBlock } from './escapeHtml.js';
+import { fmtDuration, fmtUtcDateTime } from './pilotFormat.js';
+import type { ReportModel } from './reportModelTypes.js';
+import { cspScriptHash } from './sha256.js';
+import { eventTablesSection } from './sections/eventTablesSection.js';
+import { glanceSection } from './sections/glanceSection.js';
+import { logHealthSection } from './sections/logHealthSection.js';
+import { CAUTION_TEXT, methodNotesSection } from './sections/methodNotesSection.js';
+
+/** The template files and the chart library, as text. loadReportAssets reads them from disk. */
+export interface ReportAssets {
+  /** report-template/report.html with {{NAME}} placeholders. */
+  html: string;
+  /** report-template/report.css */
+  css: string;
+  /** report-template/report.js (runs in the page) */
+  js: string;
+  /** plotly.js-dist-min's plotly.min.js */
+  plotlyJs: string;
+}
+
+/** The part of the model the page script needs (the rest is already in the HTML). */
+export interface ReportPageData {
+  title: string;
+  imageName: string;
+  series: ReportModel['series'];
+  errorScaleDeg: number;
+  divergences: { label: string; startUtc: number; endUtc: number; peakUtc: number }[];
+  unreliableSpans: ReportModel['unreliableSpans'];
+}
+
+/**
+ * Content-Security-Policy of the page: nothing may be fetched or sent (default-src 'none',
+ * connect-src 'none'), scripts run only when their text hashes to one of `scriptHashes` (CSP Level 3
+ * hash sources), styles inline, images only from data: URLs (Plotly's own image export).
+ */
+export function reportCsp(scriptHashes: string[]): string {
+  return [
+    "default-src 'none'",
+    `script-src ${scriptHashes.join(' ')}`,
+    "style-src 'unsafe-inline'",
+    'img-src data:',
+    "font-src 'none'",
+    "connect-src 'none'",
+    "media-src 'none'",
+    "object-src 'none'",
+    "frame-src 'none'",
+    "worker-src 'none'",
+    "base-uri 'none'",
+    "form-action 'none'",
+  ].join('; ');
+}
+
+/**
+ * Replaces each {{NAME}} of the template with values[NAME] in a single pass, so text inserted for one
+ * placeholder is never scanned again (a log name holding "{{CSP}}" stays text).
+ * @throws InputError when the template holds a placeholder without a value or lacks one of the values
+ */
+export function fillTemplate(template: string, values: Record<string, string>): string {
+  const used = new Set<string>();
+  const out = template.replace(/\{\{([A-Z_]+)\}\}/g, (_whole, name: string) => {
+    const v = values[name];
+    if (v === undefined) throw new InputError('report-template/report.html', `placeholder {{${name}}} has no value`);
+    used.add(name);
+    return v;
+  });
+  for (const name of Object.keys(values)) {
+    if (!used.has(name)) throw new InputError('report-template/report.html', `placeholder {{${name}}} is missing from the template`);
+  }
+  return out;
+}
+
+/**
+ * Renders the debrief page. Pure: the same model and assets give the same string.
+ *
+ * Everything is inline (CSS, Plotly, the page script, the data as JSON in a
+ * `<script type="application/json">` block with `<` written \u003c); a CSP meta forbids any network
+ * access and admits only the two inline scripts by their SHA-256. All text from the log or the options
+ * is HTML-escaped.
+ *
+ * @param model from buildReportModel
+ * @param assets from loadReportAssets (or test doubles)
+ * @returns the complete HTML document (UTF-8 text)
+ * @throws InputError when the template and the renderer disagree on placeholders
+ */
+export function renderReport(model: ReportModel, assets: ReportAssets): string {
+  const plotlyJs = inlineScriptSource(assets.plotlyJs);
+  const pageJs = inlineScriptSource(assets.js);
+  const pageData: ReportPageData = {
+    title: model.title,
+    imageName: model.meta.name !== '' ? model.meta.name : 'compass-debrief',
+    series: model.series,
+    errorScaleDeg: model.errorScaleDeg,
+    divergences: model.divergences.map((d) => ({ label: d.label, startUtc: d.startUtc, endUtc: d.endUtc, peakUtc: d.peakUtc })),
+    unreliableSpans: model.unreliableSpans,
+  };
+  const g = model.glance;
+  const subtitle = [
+    model.meta.aircraft,
+    model.meta.pilot,
+    fmtUtcDateTime(g.startUtc),
+    `${fmtDuration(g.durationS)} logged`,
+  ]
+    .filter((s) => s !== '')
+    .join(' · ');
+  const d = model.downsample;
+  const drawnNote =
+    d.drawn === d.samples
+      ? `All ${d.samples} samples are drawn.`
+      : `Drawn: ${d.drawn} of ${d.samples} samples (${d.method}). The samples CSV holds every sample.`;
+  return fillTemplate(assets.html, {
+    CSP: escapeHtml(reportCsp([cspScriptHash(plotlyJs), cspScriptHash(pageJs)])),
+    TITLE: escapeHtml(model.title),
+    CSS: assets.css.replace(/<\/style/gi, '<\\/style'),
+    SUBTITLE: escapeHtml(subtitle),
+    CAUTION: escapeHtml(CAUTION_TEXT),
+    GLANCE: glanceSection(model),
+    DRAWN_NOTE: escapeHtml(drawnNote),
+    EVENTS: eventTablesSection(model),
+    HEALTH: logHealthSection(model),
+    NOTES: methodNotesSection(model),
+    FOOTER: escapeHtml(`Made by compass-debrief on ${model.generatedAtUtc.replace('T', ' ').replace(/\.\d+Z$/, ' UTC')} from ${model.source.file}. ${CAUTION_TEXT}`),
+    DATA_JSON: jsonForScriptBlock(pageData),
+    PLOTLY_JS: plotlyJs,
+    REPORT_JS: pageJs,
+  });
+}
