@@ -49,7 +49,7 @@ export interface TurnStyle {
   rateDps?: number;
   /** Bank while established [deg], in (0, 75]; the rate follows from tan φ = V ω / g at the leg's TAS. */
   bankDeg?: number;
-  /** Time to roll in (and to roll out) [s], ≥ 0. Default 2. The heading rate ramps as a raised cosine. */
+  /** Time to roll in (and to roll out) [s], ≥ 0. Default 2. The heading rate (and so the bank) ramps along a minimum-jerk smoothstep. */
   rollTimeS?: number;
 }
 

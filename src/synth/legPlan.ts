@@ -8,9 +8,11 @@ import type { ScriptLeg, TurnLeg } from './flightScript.js';
 export type ControlChannel = 'none' | 'turnRate' | 'tasRate' | 'verticalSpeed';
 
 /**
- * A raised-cosine pulse: the channel ramps 0 → amp over rampS, holds amp for holdS, ramps back to 0 over
- * rampS. Its integral is amp·(holdS + rampS) exactly, so a leg reaches its target heading, speed or height
- * whatever the ramp. Value and first derivative are continuous (the derivative is 0 at both ends of a ramp).
+ * A smooth pulse: the channel ramps 0 → amp over rampS along the quintic smoothstep S(u) = 10u³ − 15u⁴ + 6u⁵
+ * (the minimum-jerk point-to-point profile: T. Flash, N. Hogan, J. Neurosci. 5(7):1688-1703, 1985), holds amp
+ * for holdS, and ramps back to 0 the same way. Value, first and second derivative are continuous, so the
+ * acceleration and its rate (jerk) never jump. ∫₀¹ S du = 1/2, so the integral is amp·(holdS + rampS) exactly
+ * and a leg reaches its target heading, speed or height whatever the ramp.
  * holdS may be provisional (decided turns) until `decided` is set.
  */
 export interface LegPlan {
@@ -41,14 +43,23 @@ export function legBreakpointsS(p: LegPlan): number[] {
   return [p.rampS, p.rampS + p.holdS, 2 * p.rampS + p.holdS];
 }
 
-/** Value of the pulse at leg time s [s]: raised cosine up, hold, raised cosine down; 0 outside. */
+/** Quintic smoothstep S(u) on [0, 1] and its derivative S'(u) = 30u²(1 − u)². */
+function smooth(u: number): number {
+  return u * u * u * (10 + u * (-15 + 6 * u));
+}
+function smoothRate(u: number): number {
+  const v = u * (1 - u);
+  return 30 * v * v;
+}
+
+/** Value of the pulse at leg time s [s]: smoothstep up, hold, smoothstep down; 0 outside. */
 export function pulseValue(p: LegPlan, s: number): number {
   if (p.channel === 'none' || s <= 0) return 0;
   const r = p.rampS;
-  if (s < r) return (p.amp * (1 - Math.cos((Math.PI * s) / r))) / 2;
+  if (s < r) return p.amp * smooth(s / r);
   if (s <= r + p.holdS) return p.amp;
   const u = s - r - p.holdS;
-  if (u < r) return (p.amp * (1 + Math.cos((Math.PI * u) / r))) / 2;
+  if (u < r) return p.amp * (1 - smooth(u / r));
   return 0;
 }
 
@@ -56,10 +67,10 @@ export function pulseValue(p: LegPlan, s: number): number {
 export function pulseRate(p: LegPlan, s: number): number {
   if (p.channel === 'none' || s <= 0) return 0;
   const r = p.rampS;
-  if (s < r) return ((p.amp * Math.PI) / (2 * r)) * Math.sin((Math.PI * s) / r);
+  if (s < r) return (p.amp / r) * smoothRate(s / r);
   if (s <= r + p.holdS) return 0;
   const u = s - r - p.holdS;
-  if (u < r) return -((p.amp * Math.PI) / (2 * r)) * Math.sin((Math.PI * u) / r);
+  if (u < r) return -(p.amp / r) * smoothRate(u / r);
   return 0;
 }
 
