@@ -238,15 +238,16 @@ export function simulateCompass(
     const zl = Math.sqrt(zN * zN + zE * zE + zD * zD);
     zN /= zl; zE /= zl; zD /= zl;
     clampCardAxisToStop(zN, zE, zD, cosLim, sinLim, kc);
-    readCardAxis(
-      g * xb[i3] + f * xb[j3], g * xb[i3 + 1] + f * xb[j3 + 1], g * xb[i3 + 2] + f * xb[j3 + 2],
-      bxn, byn, bzn, kc,
-    );
+    const xN = g * xb[i3] + f * xb[j3], xE = g * xb[i3 + 1] + f * xb[j3 + 1];
+    readCardAxis(xN, xE, g * xb[i3 + 2] + f * xb[j3 + 2], bxn, byn, bzn, kc);
     nodeReading = kc.readingDeg;
     nodeBp = kc.bpNt;
     nodeOnStop = kc.onStop;
     nodeTilt = kc.tiltDeg;
-    nodePsi = g * psiU[i] + f * psiU[j];
+    // Gauge heading: azimuth of the interpolated nose axis itself (not the interpolated angle, which differs from
+    // it by O(Δψ³) inside a sub-step and would shake χ_eq), continued from sample i.
+    const cr = xb[i3] * xE - xb[i3 + 1] * xN, dt = xb[i3] * xN + xb[i3 + 1] * xE;
+    nodePsi = f === 0 || !(cr * cr + dt * dt > 1e-20) ? g * psiU[i] + f * psiU[j] : psiU[i] + Math.atan2(cr, dt);
     if (!Number.isFinite(nodeReading)) return chiRef;
     const raw = nodePsi - nodeReading * DEG;
     return chiRef + wrapPi(raw - chiRef);
