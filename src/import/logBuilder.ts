@@ -2,7 +2,7 @@
 import { OPTIONAL_COLUMNS, type FlightLog, type OptionalColumn } from '../log/flightLog.js';
 
 /** A Float64Array that doubles its capacity as values are appended. */
-class GrowingFloat64 {
+export class GrowingFloat64 {
   data: Float64Array;
   length = 0;
   constructor(capacity: number) {

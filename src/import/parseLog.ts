@@ -6,6 +6,7 @@ import { decodeText } from './decodeText.js';
 import { detectFormat } from './detectFormat.js';
 import { parseGpx } from './gpx.js';
 import { parseIgc } from './igc.js';
+import { parseNmea } from './nmea.js';
 
 /** Options common to all readers; each reader uses those that apply to it. */
 export interface ReadOptions {
@@ -56,6 +57,8 @@ export function parseLogBytes(bytes: Uint8Array, file: string, opts: ReadOptions
       });
     case 'igc':
       return parseIgc(decodeText(bytes), file, { date: opts.date });
+    case 'nmea':
+      return parseNmea(decodeText(bytes), file, { date: opts.date });
     default:
       throw new ParseError(`this looks like a ${format.toUpperCase()} log, which this version cannot read yet`, {
         hint: 'export the flight as GPX or CSV',
