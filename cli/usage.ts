@@ -1,0 +1,81 @@
+// Usage texts for each command, with examples. Printed by --help and on a usage error.
+
+export const USAGE: Record<string, string> = {
+  main: `compass-debrief: what your magnetic compass showed during a recorded flight, and why.
+
+Usage:
+  compass-debrief report <log> [options]     analyse one flight log and write the debrief
+  compass-debrief swing <swing.csv> [--json out.json]
+                                             fit a deviation card to a compass-swing record
+  compass-debrief field <lat> <lon> [--alt-ft N] [--date YYYY-MM-DD]
+                                             World Magnetic Model 2025 at one place
+  compass-debrief demo [--out-dir DIR]       write the debriefs of the bundled samples
+  compass-debrief <command> --help           help on one command
+
+Logs: GPX 1.1, CSV; the format is told from the content.
+Examples:
+  compass-debrief report samples/circuit-practice.gpx --wind 250/15 --out lesson.html
+  compass-debrief field 52.61 0.42 --alt-ft 2500
+`,
+  report: `Usage: compass-debrief report <log> [options]
+
+Reads a GPS / attitude log, reconstructs the flight, evaluates the World Magnetic Model along the path,
+simulates the compass card and writes an offline HTML debrief.
+
+Options:
+  --out FILE          HTML debrief (default: <log name>.debrief.html in the current folder)
+  --samples FILE      one row per sample: positions, headings, compass reading and its error (CSV)
+  --json FILE         summary: wind, field, turns, episodes, divergences, warnings (JSON)
+  --wind W            DDD/SS (from, degrees true / knots, e.g. 250/20), calm, or auto (default: auto)
+  --deviation FILE    compass-swing record (CSV: heading_mag_deg, compass_deg) to apply as deviation
+  --compass FILE      compass profile (JSON) replacing the default card parameters
+  --format F          force the log format (gpx, csv) instead of telling it from the content
+  --aircraft NAME     aircraft shown in the debrief
+  --pilot NAME        pilot shown in the debrief
+  --quiet             print nothing but errors
+  --debug             print a stack trace on failure
+  -h, --help          this help
+
+Units: knots, feet and degrees at this interface; magnetic variation and dip from WMM2025.
+Exit codes: 0 done, 1 the input cannot be used, 2 the command line is wrong.
+Example:
+  compass-debrief report my-flight.gpx --wind 250/20 --samples out.csv --json out.json --out out.html
+`,
+  swing: `Usage: compass-debrief swing <swing.csv> [--json FILE]
+
+Fits Smith's deviation coefficients A to E by least squares to a compass-swing record (columns
+heading_mag_deg, compass_deg; five or more headings), prints them, the residuals and a correction card,
+and flags any heading whose deviation exceeds the usual 10 degree limit.
+Sign convention: deviation = magnetic − compass, easterly +; compass + deviation = magnetic.
+
+Options:
+  --json FILE   write the coefficients, residuals and card as JSON
+  --quiet       print nothing but errors
+  -h, --help    this help
+Example:
+  compass-debrief swing samples/swing-fenbird.csv --json card.json
+`,
+  field: `Usage: compass-debrief field <lat> <lon> [--alt-ft N] [--date YYYY-MM-DD]
+
+Magnetic variation (east +), dip (down +), horizontal, vertical and total intensity from the World
+Magnetic Model 2025, and whether the place lies in the model's caution or blackout zone of weak
+horizontal field. Latitude and longitude in decimal degrees (south and west negative).
+
+Options:
+  --alt-ft N        altitude in feet above the WGS-84 ellipsoid (default 0)
+  --date YYYY-MM-DD date (default: today)
+  --json            print JSON instead of text
+  -h, --help        this help
+Example:
+  compass-debrief field -41.5 173.9 --alt-ft 3000 --date 2026-06-01
+`,
+  demo: `Usage: compass-debrief demo [--out-dir DIR]
+
+Writes the debrief of every bundled sample log (samples/) into DIR (default: compass-debrief-demo).
+
+Options:
+  --out-dir DIR   folder for the reports
+  --quiet         print nothing but errors
+  -h, --help      this help
+`,
+};

@@ -1,0 +1,102 @@
+// npm run bench: the 3-hour 10 Hz flight (108,000 samples) through the whole report run, measured as a
+// ratio to a bare papaparse parse of the same file in the same run, plus stage times and peak memory.
+import { execFileSync } from 'node:child_process';
+import { mkdirSync, statSync, writeFileSync, existsSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { benchFlight } from '../../src/synth/scenarios.js';
+import { simulateFlight } from '../../src/synth/simulateFlight.js';
+import { toFlightLog } from '../../src/synth/gpsNoise.js';
+import { writeCsv } from '../../src/synth/writeCsv.js';
+import { readLogFile } from '../../src/import/readLog.js';
+import { analyseFlight } from '../../src/analyseFlight.js';
+import { buildReportModel } from '../../src/report/reportModel.js';
+import { renderReport } from '../../src/report/renderReport.js';
+import { loadReportAssets } from '../../src/report/loadReportAssets.js';
+import { samplesCsv } from '../../src/report/samplesCsv.js';
+import { summaryJson } from '../../src/report/summaryJson.js';
+
+const here = path.dirname(fileURLToPath(import.meta.url));
+const REPEATS = 3;
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)];
+}
+
+function child(mode: string, file: string, outDir: string): { ms: number; maxRssMb: number } {
+  const out = execFileSync(process.execPath, [path.join(here, 'benchChild.js'), mode, file, outDir], { encoding: 'utf8', maxBuffer: 1 << 20 });
+  return JSON.parse(out.trim().split('\n').pop() as string);
+}
+
+async function main(): Promise<void> {
+  const workDir = path.join(os.tmpdir(), 'compass-debrief-bench');
+  mkdirSync(workDir, { recursive: true });
+  const csvPath = path.join(workDir, 'flight-3h-10hz.csv');
+
+  let t0 = performance.now();
+  const truth = simulateFlight(benchFlight(3, 10));
+  const log = toFlightLog(truth, { posSigmaM: 2, altSigmaM: 3, seed: 2026, file: 'flight-3h-10hz.csv', format: 'csv' });
+  writeFileSync(csvPath, writeCsv(log, { altUnit: 'ft' }));
+  const genMs = performance.now() - t0;
+  const sizeMb = statSync(csvPath).size / 1e6;
+  console.log(`bench flight: ${log.t.length} samples, ${sizeMb.toFixed(1)} MB CSV (generated in ${(genMs / 1000).toFixed(1)} s, not counted)`);
+
+  // Stage times, in this process.
+  t0 = performance.now();
+  const { log: read, health } = await readLogFile(csvPath);
+  const readMs = performance.now() - t0;
+  const a = analyseFlight(read, { wind: { kind: 'auto' } }, health);
+  t0 = performance.now();
+  const assets = await loadReportAssets();
+  const html = renderReport(buildReportModel(a, {}), assets);
+  const renderMs = performance.now() - t0;
+  t0 = performance.now();
+  const csvOut = samplesCsv(a);
+  const jsonOut = summaryJson(a);
+  const writersMs = performance.now() - t0;
+  const htmlPath = path.join(workDir, 'bench-inprocess.html');
+  writeFileSync(htmlPath, html);
+  console.log('stage times (in process, ms):');
+  console.log(`  read + clean            ${readMs.toFixed(0)}`);
+  for (const [k, v] of Object.entries(a.timingsMs)) console.log(`  ${k.padEnd(24)}${v.toFixed(0)}`);
+  console.log(`  report model + HTML     ${renderMs.toFixed(0)}`);
+  console.log(`  samples CSV + JSON      ${writersMs.toFixed(0)}  (${(csvOut.length / 1e6).toFixed(1)} MB + ${(jsonOut.length / 1e3).toFixed(0)} kB)`);
+  console.log(`  HTML size               ${(html.length / 1e6).toFixed(2)} MB`);
+
+  // Whole runs, each in a fresh process, interleaved so that machine load affects both alike.
+  const parse: number[] = [];
+  const report: number[] = [];
+  let rss = 0;
+  let parseRss = 0;
+  for (let k = 0; k < REPEATS; k++) {
+    const p = child('parse', csvPath, workDir);
+    parse.push(p.ms);
+    parseRss = Math.max(parseRss, p.maxRssMb);
+    const r = child('report', csvPath, workDir);
+    report.push(r.ms);
+    rss = Math.max(rss, r.maxRssMb);
+  }
+  const ratio = median(report) / median(parse);
+  console.log(`whole runs (median of ${REPEATS}, fresh process each):`);
+  console.log(`  papaparse parse (baseline)  ${median(parse).toFixed(0)} ms, peak RSS ${parseRss.toFixed(0)} MB`);
+  console.log(`  report run                  ${median(report).toFixed(0)} ms, peak RSS ${rss.toFixed(0)} MB`);
+  console.log(`  RATIO report / parse        ${ratio.toFixed(2)}×`);
+
+  // Time until every chart is drawn, in Debian's chromium, where it is installed.
+  const measurePath = path.join(here, '..', 'browser', 'measureReport.js');
+  if (existsSync('/usr/bin/chromium') && existsSync(measurePath)) {
+    const { measureReportInBrowser } = (await import(measurePath)) as { measureReportInBrowser: (p: string) => Promise<{ drawnMs: number }> };
+    const drawn: number[] = [];
+    for (let k = 0; k < REPEATS; k++) drawn.push((await measureReportInBrowser(htmlPath)).drawnMs);
+    console.log(`report in chromium: ${(html.length / 1e6).toFixed(2)} MB, every chart drawn in ${median(drawn).toFixed(0)} ms (median of ${REPEATS})`);
+  } else {
+    console.log('report in chromium: skipped (no /usr/bin/chromium)');
+  }
+}
+
+main().catch((e) => {
+  console.error(e);
+  process.exit(1);
+});

@@ -1,0 +1,32 @@
+// One measured run in a fresh process: 'parse' (bare papaparse of the file, the baseline) or 'report'
+// (the whole report command). Prints one JSON line: wall time inside the process and its peak RSS.
+import { readFileSync } from 'node:fs';
+import Papa from 'papaparse';
+import { run } from '../../cli/run.js';
+
+async function main(): Promise<void> {
+  const [mode, file, outDir] = process.argv.slice(2);
+  const t0 = performance.now();
+  let rows = 0;
+  if (mode === 'parse') {
+    const text = readFileSync(file, 'utf8');
+    const parsed = Papa.parse<string[]>(text, { skipEmptyLines: true });
+    rows = parsed.data.length;
+  } else if (mode === 'report') {
+    let err = '';
+    const code = await run(
+      ['report', file, '--out', `${outDir}/bench.html`, '--samples', `${outDir}/bench-samples.csv`, '--json', `${outDir}/bench-summary.json`, '--quiet'],
+      { stdout: () => {}, stderr: (t) => (err += t), isTty: false, env: {}, cwd: outDir },
+    );
+    if (code !== 0) throw new Error(`report exited ${code}: ${err}`);
+  } else {
+    throw new Error(`unknown mode ${mode}`);
+  }
+  const ms = performance.now() - t0;
+  process.stdout.write(JSON.stringify({ mode, ms, rows, maxRssMb: process.resourceUsage().maxRSS / 1024 }) + '\n');
+}
+
+main().catch((e) => {
+  process.stderr.write(`${(e as Error).stack}\n`);
+  process.exit(1);
+});
