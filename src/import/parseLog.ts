@@ -4,6 +4,7 @@ import type { FlightLog, LogFormat } from '../log/flightLog.js';
 import { parseCsv } from './csv.js';
 import { decodeText } from './decodeText.js';
 import { detectFormat } from './detectFormat.js';
+import { parseFit } from './fit.js';
 import { parseGpx } from './gpx.js';
 import { parseIgc } from './igc.js';
 import { parseNmea } from './nmea.js';
@@ -59,6 +60,8 @@ export function parseLogBytes(bytes: Uint8Array, file: string, opts: ReadOptions
       return parseIgc(decodeText(bytes), file, { date: opts.date });
     case 'nmea':
       return parseNmea(decodeText(bytes), file, { date: opts.date });
+    case 'fit':
+      return parseFit(bytes, file);
     default:
       throw new ParseError(`this looks like a ${format.toUpperCase()} log, which this version cannot read yet`, {
         hint: 'export the flight as GPX or CSV',
