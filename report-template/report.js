@@ -137,12 +137,21 @@
       var i0 = nearestIndex(d.startUtc * 1000), i1 = nearestIndex(d.endUtc * 1000), ip = nearestIndex(d.peakUtc * 1000);
       for (var i = i0; i <= i1; i++) { bandX.push(S.eastNm[i]); bandY.push(S.northNm[i]); }
       bandX.push(null); bandY.push(null);
-      peakX.push(S.eastNm[ip]); peakY.push(S.northNm[ip]); peakLabel.push(d.label);
+      peakX.push(S.eastNm[ip]); peakY.push(S.northNm[ip]); peakLabel.push(d.showLabel ? d.label : '');
     });
-    traces.push({ type: 'scatter', mode: 'lines', x: bandX, y: bandY, name: 'Divergence window', line: { color: 'rgba(230,159,0,0.40)', width: 13 }, hoverinfo: 'skip' });
+    traces.push({ type: 'scatter', mode: 'lines', x: bandX, y: bandY, name: 'Divergence window', line: { color: 'rgba(0,0,0,0.17)', width: 15 }, hoverinfo: 'skip' });
+    // Legs flown on the compass: where the heading the pilot believed would have taken the aircraft.
+    var bx = [], by = [];
+    data.excursions.forEach(function (x) {
+      if (x.believedEastNm.length === 0) return;
+      bx = bx.concat(x.believedEastNm, [null]); by = by.concat(x.believedNorthNm, [null]);
+    });
+    if (bx.length > 0) {
+      traces.push({ type: 'scatter', mode: 'lines', x: bx, y: by, name: 'Track the compass heading promised', line: { color: OI.black, width: 2, dash: 'dash' }, hoverinfo: 'skip' });
+    }
     bands.forEach(function (B, k) {
       traces.push({ type: 'scatter', mode: 'lines', x: B.x, y: B.y, text: B.text, customdata: B.customdata, showlegend: false,
-        name: 'error band ' + k, line: { color: scaleColour((k + 0.5) / BINS), width: 3.2 }, hovertemplate: '%{text}<extra></extra>' });
+        name: 'error band ' + k, line: { color: scaleColour((k + 0.5) / BINS), width: 4.5 }, hovertemplate: '%{text}<extra></extra>' });
     });
     // Carrier of the colour bar only (no visible points).
     traces.push({ type: 'scatter', mode: 'markers', x: [null], y: [null], showlegend: false, hoverinfo: 'skip',
@@ -150,7 +159,7 @@
         colorbar: { title: { text: 'compass error', side: 'right' }, thickness: 14, len: 0.85,
           tickvals: [-E, -E / 2, 0, E / 2, E], ticktext: ['−' + E + '° or less (reads low)', '−' + E / 2 + '°', '0°', '+' + E / 2 + '°', '+' + E + '° or more (reads high)'] } } });
     traces.push({ type: 'scatter', mode: 'markers+text', x: peakX, y: peakY, text: peakLabel, textposition: 'top right', name: 'Window peak',
-      marker: { symbol: 'circle-open', size: 16, color: OI.black, line: { width: 2 } }, textfont: { size: 13, color: OI.black }, hoverinfo: 'skip', showlegend: false });
+      marker: { symbol: 'x-thin', size: 9, color: OI.black, line: { width: 1.5, color: OI.black } }, textfont: { size: 13, color: OI.black }, hoverinfo: 'skip', showlegend: false });
     traces.push({ type: 'scatter', mode: 'markers+text', x: [S.eastNm[0], S.eastNm[n - 1]], y: [S.northNm[0], S.northNm[n - 1]], text: ['start', 'end'],
       textposition: ['bottom center', 'top center'], marker: { symbol: ['triangle-up', 'square'], size: 12, color: OI.black }, hoverinfo: 'skip', showlegend: false });
     var layout = {
@@ -193,12 +202,12 @@
     data.divergences.forEach(function (d) {
       shapes.push({ type: 'rect', xref: 'x', yref: 'paper', x0: d.startUtc * 1000, x1: d.endUtc * 1000, y0: 0, y1: 1,
         fillcolor: 'rgba(230,159,0,0.17)', line: { width: 0 }, layer: 'below' });
-      annotations.push({ xref: 'x', yref: 'paper', x: d.peakUtc * 1000, y: 1, yanchor: 'top', text: d.label, showarrow: false,
+      if (d.showLabel) annotations.push({ xref: 'x', yref: 'paper', x: d.peakUtc * 1000, y: 1, yanchor: 'top', text: d.label, showarrow: false,
         font: { size: 11, color: '#6b4a00' }, bgcolor: 'rgba(255,255,255,0.85)' });
     });
     data.unreliableSpans.forEach(function (u) {
       shapes.push({ type: 'rect', xref: 'x', yref: 'y2 domain', x0: u.t0Utc * 1000, x1: Math.max(u.t1Utc * 1000, u.t0Utc * 1000 + 500), y0: 0, y1: 1,
-        fillcolor: 'rgba(60,60,60,0.16)', line: { color: 'rgba(60,60,60,0.5)', width: 1, dash: 'dot' }, layer: 'below' });
+        fillcolor: 'rgba(60,60,60,0.14)', line: { width: 0 }, layer: 'below' });
     });
     function panel(title, domain, extra) {
       var a = { domain: domain, anchor: 'x', title: { text: title, standoff: 6 }, gridcolor: '#ebe8df', zeroline: true, zerolinecolor: '#9a9a9a', fixedrange: false };

@@ -6,12 +6,13 @@
  * Visualization-Oriented Time Series Data Aggregation", PVLDB 7(10), 2014), here with the compass
  * error as the column whose extremes are kept: the rows are cut into B equal-count buckets and in each
  * bucket the rows of lowest and highest finite `errorDeg` are kept (the first row when none is finite).
- * `forcedRows` (segment starts/ends, event times) are always kept.
+ * The first and last row and `forcedRows` (segment starts/ends, event times) are always kept.
  *
  * @param errorDeg compass error per row [deg]; NaN allowed
  * @param maxPoints upper bound on the result length (≥ 2); all rows are returned when n ≤ maxPoints
  * @param forcedRows rows that must be drawn (any order, duplicates and out-of-range values ignored)
- * @returns sorted, distinct row indices, length ≤ max(maxPoints, forced rows + 2)
+ * @returns sorted, distinct row indices, length ≤ maxPoints while the forced rows take at most
+ *   maxPoints − 2 (beyond that, forced rows + 2)
  */
 export function downsampleForDrawing(errorDeg: Float64Array, maxPoints: number, forcedRows: ArrayLike<number>): Int32Array {
   const n = errorDeg.length;
@@ -21,7 +22,9 @@ export function downsampleForDrawing(errorDeg: Float64Array, maxPoints: number, 
     return all;
   }
   const keep = new Uint8Array(n);
-  let forced = 0;
+  keep[0] = 1;
+  keep[n - 1] = 1;
+  let forced = 2;
   for (let k = 0; k < forcedRows.length; k++) {
     const r = forcedRows[k];
     if (Number.isInteger(r) && r >= 0 && r < n && keep[r] === 0) {
@@ -47,8 +50,6 @@ export function downsampleForDrawing(errorDeg: Float64Array, maxPoints: number, 
       keep[iMax] = 1;
     }
   }
-  keep[0] = 1;
-  keep[n - 1] = 1;
   let m = 0;
   for (let i = 0; i < n; i++) m += keep[i];
   const rows = new Int32Array(m);

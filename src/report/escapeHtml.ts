@@ -26,9 +26,9 @@ export function jsonForScriptBlock(value: unknown): string {
 
 /**
  * Makes JavaScript source safe to inline in a classic `<script>`: every `<!--`, `<script` and
- * `</script` (any case) gets its `<` written as the escape \x3C, which means the same character
- * inside the string, template and regular-expression literals where such text can occur in valid code
- * (HTML Living Standard §4.12.1.3). Such text outside a literal cannot occur in valid code; the
+ * `</script` (any case) gets its `<` written as the escape \x3C, which is the same character inside
+ * string and template literals and matches the same in regular expressions (only a regexp's .source
+ * text changes), the only places such text can occur in valid code (HTML Living Standard §4.12.1.3). Such text outside a literal cannot occur in valid code; the
  * browser tests are the check that the inlined libraries still run.
  */
 export function inlineScriptSource(js: string): string {

@@ -27,7 +27,9 @@ export interface ReportPageData {
   imageName: string;
   series: ReportModel['series'];
   errorScaleDeg: number;
-  divergences: { label: string; startUtc: number; endUtc: number; peakUtc: number }[];
+  /** showLabel: one of the 12 largest peaks (the rest are ringed without text, to keep the charts legible). */
+  divergences: { label: string; startUtc: number; endUtc: number; peakUtc: number; showLabel: boolean }[];
+  excursions: { label: string; believedEastNm: (number | null)[]; believedNorthNm: (number | null)[] }[];
   unreliableSpans: ReportModel['unreliableSpans'];
 }
 
@@ -88,12 +90,20 @@ export function fillTemplate(template: string, values: Record<string, string>): 
 export function renderReport(model: ReportModel, assets: ReportAssets): string {
   const plotlyJs = inlineScriptSource(assets.plotlyJs);
   const pageJs = inlineScriptSource(assets.js);
+  const labelled = new Set([...model.divergences].sort((a, b) => Math.abs(b.peakErrorDeg) - Math.abs(a.peakErrorDeg)).slice(0, 12));
   const pageData: ReportPageData = {
     title: model.title,
     imageName: model.meta.name !== '' ? model.meta.name : 'compass-debrief',
     series: model.series,
     errorScaleDeg: model.errorScaleDeg,
-    divergences: model.divergences.map((d) => ({ label: d.label, startUtc: d.startUtc, endUtc: d.endUtc, peakUtc: d.peakUtc })),
+    divergences: model.divergences.map((d) => ({
+      label: d.label,
+      startUtc: d.startUtc,
+      endUtc: d.endUtc,
+      peakUtc: d.peakUtc,
+      showLabel: labelled.has(d),
+    })),
+    excursions: model.excursions.map((x) => ({ label: x.label, believedEastNm: x.believedEastNm, believedNorthNm: x.believedNorthNm })),
     unreliableSpans: model.unreliableSpans,
   };
   const g = model.glance;

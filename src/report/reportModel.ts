@@ -140,8 +140,13 @@ export function buildReportModel(a: FlightAnalysis, opts: ReportModelOptions = {
       compassSettledDeg: t.compassSettledDeg,
       cueCompassDeg: t.cueCompassDeg,
       ruleOfThumbCueDeg: t.ruleOfThumbCueDeg,
+      compassAtRolloutStartDeg: t.compassAtRolloutStartDeg ?? NaN,
+      toleranceDeg: t.toleranceDeg ?? NaN,
       timedDurationS: t.timed?.durationS ?? NaN,
       timedExpectedChangeDeg: t.timed?.expectedChangeDeg ?? NaN,
+      timedActualChangeDeg: t.timed?.actualChangeDeg ?? NaN,
+      timedDifferenceDeg: t.timed?.differenceDeg ?? NaN,
+      timedWithinTolerance: t.timed?.withinTolerance ?? null,
     })),
     episodes: an.episodes.map((e, k) => ({
       label: `S${k + 1}`,
@@ -174,6 +179,7 @@ export function buildReportModel(a: FlightAnalysis, opts: ReportModelOptions = {
       windCrossTrackNm: x.windCrossTrackM / NM_M,
       residualCrossTrackNm: x.residualCrossTrackM / NM_M,
       source: x.source,
+      ...believedTrackNm(x.believedTrack, s.lat[first], s.lon[first]),
     })),
     health: {
       ...a.health,
@@ -289,6 +295,23 @@ function mainCauseAt(a: FlightAnalysis, i: number): string {
     }
   }
   return best;
+}
+
+/** An excursion's believed track on the plan view's frame, thinned to ≤ 400 points, rounded to 0.001 NM. */
+function believedTrackNm(
+  track: { latDeg: Float64Array; lonDeg: Float64Array } | undefined,
+  lat0Deg: number,
+  lon0Deg: number,
+): { believedEastNm: (number | null)[]; believedNorthNm: (number | null)[] } {
+  if (track === undefined || track.latDeg.length === 0) return { believedEastNm: [], believedNorthNm: [] };
+  const m = track.latDeg.length;
+  const step = Math.max(1, Math.ceil(m / 400));
+  const rows: number[] = [];
+  for (let i = 0; i < m; i += step) rows.push(i);
+  if (rows[rows.length - 1] !== m - 1) rows.push(m - 1);
+  const idx = Int32Array.from(rows);
+  const p = localPlanNm(track.latDeg, track.lonDeg, lat0Deg, lon0Deg);
+  return { believedEastNm: compactAtRows(p.eastNm, idx, 3), believedNorthNm: compactAtRows(p.northNm, idx, 3) };
 }
 
 function firstFiniteFix(lat: Float64Array, lon: Float64Array): number {

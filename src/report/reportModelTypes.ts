@@ -127,8 +127,16 @@ export interface ReportTurnRow {
   compassSettledDeg: number;
   cueCompassDeg: number;
   ruleOfThumbCueDeg: number;
+  /** Compass reading when the roll-out actually began; NaN when the analysis did not say. */
+  compassAtRolloutStartDeg: number;
+  /** Tolerance the roll-out was graded against [deg]; NaN when not given. */
+  toleranceDeg: number;
+  /** Timed turn (flown on the clock): NaN / null where the turn was not timed or the field is absent. */
   timedDurationS: number;
   timedExpectedChangeDeg: number;
+  timedActualChangeDeg: number;
+  timedDifferenceDeg: number;
+  timedWithinTolerance: boolean | null;
 }
 
 export interface ReportEpisodeRow {
@@ -162,6 +170,12 @@ export interface ReportExcursionRow {
   windCrossTrackNm: number;
   residualCrossTrackNm: number;
   source: 'option' | 'detected';
+  /**
+   * Where the aircraft would have gone on the heading the pilot believed, on the plan view's frame
+   * [NM east/north of the first fix], thinned to at most 400 points; empty when the analysis gave none.
+   */
+  believedEastNm: (number | null)[];
+  believedNorthNm: (number | null)[];
 }
 
 export interface ReportWarning {

@@ -4,7 +4,7 @@
 import { DEG, G0_MS2, KT_MS, RAD } from '../../src/constants.js';
 import { wrap180, wrap360 } from '../../src/geo/angles.js';
 import type { FlightAnalysis } from '../../src/flightAnalysis.js';
-import type { DivergenceWindow, SpeedEpisode, TurnResult } from '../../src/analysis/analysisTypes.js';
+import type { DivergenceWindow, ExcursionResult, SpeedEpisode, TurnResult } from '../../src/analysis/analysisTypes.js';
 import type { LogMeta, LogWarning } from '../../src/log/flightLog.js';
 
 /** Strings that try to break out of HTML text, attributes, the JSON block and the template. */
@@ -38,18 +38,20 @@ interface Leg {
 
 /** A repeating pattern of straight legs, standard-rate turns and speed changes. */
 const PATTERN: Leg[] = [
-  { durS: 90, rateDps: 0, accelKtS: 0 },
+  { durS: 240, rateDps: 0, accelKtS: 0 },
   { durS: 30, rateDps: 3, accelKtS: 0 },
-  { durS: 25, rateDps: 0, accelKtS: 0 },
-  { durS: 15, rateDps: 0, accelKtS: 1.2 },
-  { durS: 40, rateDps: 0, accelKtS: 0 },
-  { durS: 60, rateDps: -3, accelKtS: 0 },
-  { durS: 30, rateDps: 0, accelKtS: 0 },
-  { durS: 15, rateDps: 0, accelKtS: -1.2 },
-  { durS: 45, rateDps: 0, accelKtS: 0 },
-  { durS: 45, rateDps: 3, accelKtS: 0 },
   { durS: 60, rateDps: 0, accelKtS: 0 },
+  { durS: 15, rateDps: 0, accelKtS: 1.2 },
+  { durS: 150, rateDps: 0, accelKtS: 0 },
+  { durS: 60, rateDps: -3, accelKtS: 0 },
+  { durS: 120, rateDps: 0, accelKtS: 0 },
+  { durS: 15, rateDps: 0, accelKtS: -1.2 },
+  { durS: 300, rateDps: 0, accelKtS: 0 },
+  { durS: 45, rateDps: 3, accelKtS: 0 },
+  { durS: 200, rateDps: 0, accelKtS: 0 },
   { durS: 120, rateDps: -3, accelKtS: 0 },
+  { durS: 90, rateDps: 0, accelKtS: 0 },
+  { durS: 40, rateDps: 3, accelKtS: 0 },
 ];
 
 const AIRSTRIP = { latDeg: 52.6183, lonDeg: 0.2417 }; // invented position of the fictional airstrip
@@ -134,7 +136,7 @@ export function syntheticFlight(opts: SyntheticOptions): FlightAnalysis {
     errorDeg[i] = wrap180(readingDeg[i] - mag);
     tilt[i] = 0;
     directive[i] = Math.cos(phi);
-    unreliable[i] = Math.abs(errorDeg[i]) > 25 ? 1 : 0;
+    unreliable[i] = Math.abs(errorDeg[i]) > 32 ? 1 : 0;
 
     legT += dt;
     if (legT >= L.durS - 1e-9) {
@@ -160,7 +162,8 @@ export function syntheticFlight(opts: SyntheticOptions): FlightAnalysis {
           targetMagDeg: wrap360(Math.round(magAt(j) / 10) * 10), targetSource: 'inferred', targetConfidence: 0.8,
           rolloutErrorDeg: wrap180(magAt(j) - Math.round(magAt(j) / 10) * 10), withinTolerance: Math.abs(wrap180(magAt(j) - Math.round(magAt(j) / 10) * 10)) <= 5,
           cueCompassDeg: wrap360(readingDeg[j] - 5), ruleOfThumbCueDeg: wrap360(readingDeg[j] - 8),
-          timed: turns.length % 3 === 0 ? { durationS: L.durS, expectedChangeDeg: 3 * L.durS } : undefined,
+          compassAtRolloutStartDeg: readingDeg[Math.max(i, j - 3 * opts.hz)], toleranceDeg: 5,
+          timed: turns.length % 3 === 0 ? { durationS: L.durS, expectedChangeDeg: 3 * L.durS, actualChangeDeg: 3 * L.durS + 2, differenceDeg: 2, withinTolerance: true } : undefined,
         });
       }
       if (L.accelKtS !== 0 && episodes.length < 40) {
@@ -187,6 +190,28 @@ export function syntheticFlight(opts: SyntheticOptions): FlightAnalysis {
         divergences.push({ startIndex: i, endIndex: j, startT: t[i], endT: t[j], peakErrorDeg: errorDeg[peak], peakT: t[peak], cause: 'turn' });
       }
       i = j + 1;
+    }
+  }
+
+  const excursions: ExcursionResult[] = [];
+  if (opts.withEvents !== false) {
+    // The first long straight leg, "flown on the compass": the believed track is the real one turned by 6°.
+    const legStart = Math.min(n - 1, Math.round(PATTERN[0].durS * 0.25 * opts.hz));
+    const legEnd = Math.min(n - 1, Math.round(PATTERN[0].durS * opts.hz) - 1);
+    const m = legEnd - legStart + 1;
+    if (m > 10) {
+      const bLat = new Float64Array(m), bLon = new Float64Array(m);
+      const c = Math.cos(6 * DEG), sn = Math.sin(6 * DEG), k = Math.cos(lat[legStart] * DEG);
+      for (let q = 0; q < m; q++) {
+        const dN = lat[legStart + q] - lat[legStart], dE = (lon[legStart + q] - lon[legStart]) * k;
+        bLat[q] = lat[legStart] + c * dN - sn * dE;
+        bLon[q] = lon[legStart] + (sn * dN + c * dE) / k;
+      }
+      excursions.push({
+        startIndex: legStart, endIndex: legEnd, startT: t[legStart], endT: t[legEnd], heldCompassDeg: readingDeg[legStart],
+        observedCrossTrackM: 820, compassCrossTrackM: 610, windCrossTrackM: 250, residualCrossTrackM: -40, source: 'detected',
+        believedTrack: { latDeg: bLat, lonDeg: bLon },
+      });
     }
   }
 
@@ -217,7 +242,7 @@ export function syntheticFlight(opts: SyntheticOptions): FlightAnalysis {
       n, staticDeg, dynamicDeg, readingDeg, errorDeg, errDipTurnDeg: eTurn, errDipAccelDeg: eAccel, errLagSwirlDeg: eLag, errDeviationDeg: eDev,
       tiltDeg: tilt, directiveRatio: directive, unreliable,
     },
-    analysis: { turns, episodes, divergences, excursions: [] },
+    analysis: { turns, episodes, divergences, excursions },
     warnings,
     timingsMs: {},
   };

@@ -6,53 +6,60 @@ import { headRow, jumpRow, tableOrEmpty, td } from './htmlParts.js';
 
 const NOT_YET = 'either the flight had none, or this version of compass-debrief does not detect them yet.';
 
+/** "+3° ✓ within 5°" / "−12° ✗ outside 5°": the grade in words and symbol, not colour alone. */
+function grade(diffDeg: number, ok: boolean | null, toleranceDeg: number): string {
+  if (!Number.isFinite(diffDeg)) return '–';
+  const tol = Number.isFinite(toleranceDeg) ? ` ${fmtNumber(toleranceDeg, 0, '°')}` : ' tolerance';
+  if (ok === null) return fmtSignedDeg(diffDeg, 0);
+  return `${fmtSignedDeg(diffDeg, 0)} ${ok ? `✓ within${tol}` : `✗ outside${tol}`}`;
+}
+
 /** HTML of the turn table (what the compass showed at roll-out, where the roll-out should have begun). */
 export function turnsTable(m: ReportModel): string {
   const head = headRow([
     ['Turn'],
     ['Start', 'UTC'],
-    ['Direction'],
-    ['Change'],
+    ['Turned'],
     ['Rate', '°/s'],
     ['Peak bank'],
-    ['Entry', 'magnetic'],
-    ['Target', 'magnetic'],
-    ['Rolled out on', 'magnetic'],
-    ['Off target'],
-    ['Compass at roll-out'],
-    ['Compass settled'],
-    ['Roll-out cue', 'compass'],
-    ['Rule-of-thumb cue', 'compass'],
+    ['Entry → target', 'magnetic'],
+    ['Rolled out on', 'magnetic, off target'],
+    ['Roll-out began', 'at compass'],
+    ['Should have begun', 'at compass (model)'],
+    ['Rule of thumb', 'at compass'],
+    ['Compass at roll-out', '→ once settled'],
     ['Timed turn'],
   ]);
-  const rows = m.turns.map((t) =>
-    jumpRow(
+  const rows = m.turns.map((t) => {
+    const timed = Number.isFinite(t.timedDurationS)
+      ? `${fmtDuration(t.timedDurationS)} for ${fmtNumber(t.timedExpectedChangeDeg, 0, '°')}${
+          Number.isFinite(t.timedActualChangeDeg) ? `, flew ${fmtNumber(t.timedActualChangeDeg, 0, '°')} (${grade(t.timedDifferenceDeg, t.timedWithinTolerance, t.toleranceDeg)})` : ''
+        }`
+      : '–';
+    return jumpRow(
       [
         td(t.label),
         td(fmtUtcTime(t.startUtc)),
-        td(t.direction),
-        td(fmtNumber(t.headingChangeDeg, 0, '°'), 'num'),
+        td(`${t.direction} ${fmtNumber(t.headingChangeDeg, 0, '°')}`),
         td(fmtNumber(t.meanRateDps, 1), 'num'),
         td(fmtBank(t.peakBankDeg), 'num'),
-        td(fmtHeading(t.entryMagDeg), 'num'),
-        td(`${fmtHeading(t.targetMagDeg)}${t.targetSource === 'inferred' ? ' (inferred)' : ' (plan)'}`, 'num'),
-        td(fmtHeading(t.rolloutMagDeg), 'num'),
-        td(`${fmtSignedDeg(t.rolloutErrorDeg, 0)} ${t.withinTolerance ? '✓ within tolerance' : '✗ outside tolerance'}`, t.withinTolerance ? 'ok' : 'bad'),
-        td(fmtHeading(t.compassAtRolloutDeg), 'num'),
-        td(fmtHeading(t.compassSettledDeg), 'num'),
+        td(`${fmtHeading(t.entryMagDeg)} → ${fmtHeading(t.targetMagDeg)}${t.targetSource === 'inferred' ? ' (inferred)' : ' (plan)'}`),
+        td(`${fmtHeading(t.rolloutMagDeg)}, ${grade(t.rolloutErrorDeg, t.withinTolerance, t.toleranceDeg)}`, t.withinTolerance ? 'ok' : 'bad'),
+        td(fmtHeading(t.compassAtRolloutStartDeg), 'num'),
         td(fmtHeading(t.cueCompassDeg), 'num'),
         td(fmtHeading(t.ruleOfThumbCueDeg), 'num'),
-        td(Number.isFinite(t.timedDurationS) ? `${fmtDuration(t.timedDurationS)} for ${fmtNumber(t.timedExpectedChangeDeg, 0, '°')}` : '–'),
+        td(`${fmtHeading(t.compassAtRolloutDeg)} → ${fmtHeading(t.compassSettledDeg)}`, 'num'),
+        td(timed),
       ],
       t.endUtc,
       t.startUtc,
       t.endUtc,
       `turn ${t.label}`,
-    ),
-  );
+    );
+  });
   return tableOrEmpty(
     'turns-table',
-    'Turns: the magnetic heading the aircraft rolled out on, what the compass showed then, and the compass reading at which the roll-out should have begun. Click a row to see its roll-out.',
+    'Turns: the magnetic heading the aircraft rolled out on, the compass reading at which the roll-out began and at which it should have begun, and what the card showed as the wings came level. Click a row to see its roll-out.',
     head,
     rows,
     `No turns to list: ${NOT_YET}`,

@@ -29,7 +29,7 @@ export function methodNotesSection(m: ReportModel): string {
     'The compass reading is simulated, not recorded. The log’s positions are smoothed, the ground velocity and acceleration follow from them, the wind (see “Wind used”) turns ground track into heading, and bank comes from the log or, where it has none, from a coordinated turn.',
     `The Earth’s field along the path comes from ${g.fieldModel} for epoch ${fmtNumber(g.decimalYear, 2)}. Local magnetic anomalies and the aircraft’s own magnetism beyond a given deviation card are not known to the model.`,
     'The card is modelled as a pendulous magnet in liquid: its “down” follows the apparent gravity, its magnet seeks the part of the field in the card’s plane, and the card swings, lags and is dragged by the liquid with the time constants of the compass profile used.',
-    'Compass error = compass reading − magnetic heading, in degrees. Positive: the card shows a larger number than the aircraft’s magnetic heading. Samples where the card is on its tilt stop or has lost its directive force are flagged unreliable and hatched on the error chart.',
+    'Compass error = compass reading − magnetic heading, in degrees. Positive: the card shows a larger number than the aircraft’s magnetic heading. Samples where the card is on its tilt stop or has lost its directive force are flagged unreliable and shaded grey on the error chart.',
     `Charts: ${d.drawn === d.samples ? `all ${d.samples} samples are drawn.` : `${d.drawn} of ${d.samples} samples are drawn (${d.method}). The compass card and the slider step through the drawn points. The samples CSV has every sample.`}`,
     'All times are UTC. Headings are in degrees, speeds in knots, altitudes in feet, distances in nautical miles.',
   ];
