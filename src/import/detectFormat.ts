@@ -97,6 +97,12 @@ export function detectTextFormat(head: string): LogFormat {
  */
 export function detectFormat(bytes: Uint8Array): LogFormat {
   if (looksLikeFit(bytes)) return 'fit';
+  if (bytes.length >= 4 && bytes[0] === 0x50 && bytes[1] === 0x4b && bytes[2] === 0x03 && bytes[3] === 0x04) {
+    // ZIP local file header signature "PK\3\4" (PKWARE APPNOTE §4.3.7): a KMZ is a zipped KML.
+    throw new ParseError('a ZIP archive (a KMZ?), not a flight log this tool can read directly', {
+      hint: 'unzip it and give the .kml inside; ' + SUPPORTED_FORMATS_HINT,
+    });
+  }
   if (hasUtf16Bom(bytes)) return detectTextFormat(decodeText(bytes.subarray(0, DETECT_BYTES)));
   if (looksBinary(bytes)) {
     throw new ParseError('binary data, not a flight log this tool can read', { hint: SUPPORTED_FORMATS_HINT });

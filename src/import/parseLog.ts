@@ -7,6 +7,7 @@ import { detectFormat } from './detectFormat.js';
 import { parseFit } from './fit.js';
 import { parseGpx } from './gpx.js';
 import { parseIgc } from './igc.js';
+import { parseKml } from './kml.js';
 import { parseNmea } from './nmea.js';
 
 /** Options common to all readers; each reader uses those that apply to it. */
@@ -62,9 +63,9 @@ export function parseLogBytes(bytes: Uint8Array, file: string, opts: ReadOptions
       return parseNmea(decodeText(bytes), file, { date: opts.date });
     case 'fit':
       return parseFit(bytes, file);
+    case 'kml':
+      return parseKml(decodeText(bytes), file);
     default:
-      throw new ParseError(`this looks like a ${format.toUpperCase()} log, which this version cannot read yet`, {
-        hint: 'export the flight as GPX or CSV',
-      });
+      throw new ParseError(`unknown format "${String(format)}"`);
   }
 }

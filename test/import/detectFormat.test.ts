@@ -64,3 +64,9 @@ describe('detectFormat: by content, not by file name', () => {
     expect(detectFormat(b)).toBe('csv');
   });
 });
+
+describe('detectFormat: archives', () => {
+  it('refuses a ZIP (KMZ) with a hint to unzip it (ZIP signature PK\\3\\4, PKWARE APPNOTE)', () => {
+    expect(() => detectFormat(new Uint8Array([0x50, 0x4b, 0x03, 0x04, 0, 0, 0, 0]))).toThrow(/KMZ/);
+  });
+});

@@ -1,0 +1,172 @@
+// KML 2.2 timed tracks (gx:Track, also inside gx:MultiTrack) to FlightLog columns, over saxes.
+//
+// Source: OGC KML 2.2 (OGC 07-147r2) and Google's KML extension namespace gx (kml/ext/2.2) reference:
+// a <gx:Track> holds <when> elements (xsd:dateTime) and, in the same order and number, <gx:coord>
+// elements "longitude latitude altitude" separated by spaces (degrees WGS-84, metres); <altitudeMode>
+// absolute "interprets the altitude as a value in meters above sea level", while the default clampToGround
+// (and relativeToGround) do not give heights above sea level [wording from memory]. A <LineString> has
+// coordinates but no times and cannot be used. Broken XML: reading stops at the first well-formedness error
+// (XML 1.0 §1.2) and keeps the complete points before it.
+import { SaxesParser, type SaxesTagPlain } from 'saxes';
+import { ParseError } from '../errors.js';
+import type { FlightLog, LogWarning } from '../log/flightLog.js';
+import { LineTally, plural, pushTally } from '../log/logWarnings.js';
+import { parseIsoDateTime } from './isoTime.js';
+import { LogBuilder } from './logBuilder.js';
+import { parseDecimal } from './parseNumber.js';
+import { toPlainText } from './plainText.js';
+
+class StopAtXmlError extends Error {}
+
+function localName(name: string): string {
+  const colon = name.indexOf(':');
+  return colon < 0 ? name : name.slice(colon + 1);
+}
+
+/** One gx:Track being read: its times and coordinates in order. */
+interface TrackInProgress {
+  when: number[];
+  coords: Array<[number, number, number, number]>; // lon, lat, alt, line
+  altitudeMode: string;
+}
+
+/**
+ * Reads the gx:Track elements of a KML 2.2 document into a FlightLog (format 'kml'): t from <when>,
+ * lon/lat/alt from <gx:coord>, paired by position; altM only with altitudeMode absolute (msl),
+ * else NaN with a warning. line = line of each <gx:coord>. First Document/Placemark name → meta.name.
+ * @throws ParseError when the document has no gx:Track (an untimed LineString gets its own hint).
+ */
+export function parseKml(text: string, file: string): FlightLog {
+  const parser = new SaxesParser({ xmlns: false, position: true });
+  const rows = new LogBuilder();
+  const warnings: LogWarning[] = [];
+  const mismatch = new LineTally();
+  const badCoord = new LineTally();
+  const stack: string[] = [];
+  let rootSeen = false;
+  let rootClosed = false;
+  let track: TrackInProgress | undefined;
+  let tracks = 0;
+  let lineStrings = 0;
+  let nonAbsolute = 0;
+  let name: string | undefined;
+  let desc: string | undefined;
+  let capture: string | undefined;
+  let captured = '';
+  let tagLine = 1;
+  let trackLine = 0;
+  let lastComplete = 0;
+  let xmlError: { message: string; line: number; atEnd: boolean } | undefined;
+  let atEnd = false;
+  let pointsSeen = 0;
+
+  const flushTrack = (complete: boolean) => {
+    if (!track) return;
+    const n = Math.min(track.when.length, track.coords.length);
+    if (complete && track.when.length !== track.coords.length) mismatch.add(trackLine);
+    const absolute = track.altitudeMode === 'absolute';
+    if (!absolute && n > 0) nonAbsolute++;
+    for (let i = 0; i < n; i++) {
+      const [lon, lat, alt, line] = track.coords[i];
+      rows.addRow(track.when[i], lat, lon, absolute ? alt : NaN, line);
+    }
+    pointsSeen += Math.max(track.when.length, track.coords.length);
+    track = undefined;
+  };
+
+  parser.on('error', (err) => {
+    if (!xmlError) xmlError = { message: err.message.replace(/^(?:[^:]*:)?\d+:\d+:\s*/, ''), line: parser.line, atEnd };
+    throw new StopAtXmlError();
+  });
+  parser.on('opentagstart', () => {
+    tagLine = parser.line;
+  });
+  parser.on('opentag', (tag: SaxesTagPlain) => {
+    const n = localName(tag.name);
+    if (!rootSeen) {
+      rootSeen = true;
+      if (n !== 'kml') throw new ParseError(`the XML document's root element is <${tag.name}>, not <kml>`, { line: tagLine });
+    }
+    const parent = stack.length > 0 ? stack[stack.length - 1] : '';
+    stack.push(n);
+    if (n === 'Track') {
+      tracks++;
+      trackLine = tagLine;
+      track = { when: [], coords: [], altitudeMode: 'clampToGround' };
+    } else if (n === 'LineString') lineStrings++;
+    if ((track && (n === 'when' || n === 'coord' || n === 'altitudeMode')) || ((n === 'name' || n === 'description') && (parent === 'Document' || parent === 'Placemark'))) {
+      capture = n;
+      captured = '';
+    }
+  });
+  const onText = (chunk: string) => {
+    if (capture !== undefined) captured += chunk;
+  };
+  parser.on('text', onText);
+  parser.on('cdata', onText);
+  parser.on('closetag', (tag: SaxesTagPlain) => {
+    const n = localName(tag.name);
+    stack.pop();
+    if (capture !== undefined && capture === n) {
+      if (n === 'when' && track) track.when.push(parseIsoDateTime(captured.trim(), 0));
+      else if (n === 'coord' && track) {
+        const parts = captured.trim().split(/\s+/);
+        const lon = parseDecimal(parts[0]);
+        const lat = parseDecimal(parts[1]);
+        const alt = parts.length > 2 ? parseDecimal(parts[2]) : NaN;
+        if (!Number.isFinite(lon) || !Number.isFinite(lat)) badCoord.add(tagLine);
+        track.coords.push([lon, lat, alt, tagLine]);
+        lastComplete = parser.line;
+      } else if (n === 'altitudeMode' && track) track.altitudeMode = captured.trim();
+      else if (n === 'name' && name === undefined) name = toPlainText(captured);
+      else if (n === 'description' && desc === undefined) desc = toPlainText(captured);
+      capture = undefined;
+    }
+    if (n === 'Track') flushTrack(true);
+    if (stack.length === 0) rootClosed = true;
+  });
+
+  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+  try {
+    parser.write(body);
+    atEnd = true;
+    parser.close();
+  } catch (err) {
+    if (!(err instanceof StopAtXmlError)) throw err;
+  }
+  const truncated = xmlError !== undefined && !rootClosed;
+  if (truncated) flushTrack(false);
+  if (!rootSeen) throw new ParseError('no XML element found', { hint: 'expected a KML 2.2 document starting with <kml>' });
+  if (xmlError && rows.length === 0) {
+    throw new ParseError(`the KML file is not well-formed XML: ${xmlError.message}`, { line: xmlError.line });
+  }
+  if (rows.length === 0) {
+    if (tracks > 0) throw new ParseError(`the KML file's ${plural(tracks, 'gx:Track')} hold no timed points`, { hint: 'each <when> needs a matching <gx:coord>' });
+    throw new ParseError(lineStrings > 0 ? 'the KML file holds only an untimed path (LineString), no times' : 'the KML file holds no timed track (gx:Track)', {
+      hint: 'a flight log needs a time for each position: export the flight as a KML gx:Track, GPX track, IGC or CSV with times',
+    });
+  }
+  if (xmlError && truncated) {
+    warnings.push({
+      code: xmlError.atEnd ? 'file-truncated' : 'xml-broken',
+      message: `${xmlError.atEnd ? `The file ends before the KML document is complete (line ${xmlError.line}: ${xmlError.message}): it was probably cut off while being written` : `The XML is broken at line ${xmlError.line} (${xmlError.message}); reading stopped there`}. The flight is analysed up to the last complete point (ending on line ${lastComplete}).`,
+      lines: [xmlError.line],
+    });
+  }
+  pushTally(warnings, 'kml-count-mismatch', 'gx:Track with different numbers of <when> and <gx:coord>; only the pairs were used', mismatch);
+  pushTally(warnings, 'kml-bad-coord', `${plural(badCoord.count, 'gx:coord')} that could not be read`, badCoord);
+  if (nonAbsolute > 0) {
+    warnings.push({
+      code: 'kml-altitude-mode',
+      message: 'The track is not in altitudeMode absolute, so its heights are not heights above sea level and are not used.',
+    });
+  }
+  return rows.build({
+    format: 'kml',
+    file,
+    warnings,
+    meta: { name, comment: desc },
+    altDatum: nonAbsolute > 0 ? 'unknown' : 'msl',
+    reader: { recordsRead: pointsSeen, recordsDropped: pointsSeen - rows.length, truncated },
+  });
+}
