@@ -18,6 +18,13 @@ export interface WindEstimate {
   tasMs: number;
   /** Degrees of air-vector turn covered by a turn fit, NaN otherwise. */
   arcDeg: number;
+  /** Added (optional): the same wind as an air-mass velocity (blowing TO), north and east [m/s]. */
+  windN?: number;
+  windE?: number;
+  /** Added (optional): covariance of (windN, windE) [m²/s²] as [NN, NE, EE]. */
+  covNeMs2?: [number, number, number];
+  /** Added (optional): RMS orthogonal residual of a turn fit [m/s]. */
+  rmsResidualMs?: number;
 }
 
 /**
@@ -41,6 +48,7 @@ export interface FlightState {
   accSigmaMs2: Float64Array;
   gsMs: Float64Array;
   trackDegTrue: Float64Array;
+  /** Wind used at each sample as the air-mass velocity (the way it blows TO), north/east [m/s]. */
   windN: Float64Array;
   windE: Float64Array;
   tasMs: Float64Array;
@@ -55,4 +63,10 @@ export interface FlightState {
   logRow: Int32Array;
   winds: WindEstimate[];
   warnings: LogWarning[];
+  /** Added (optional): 1-sigma of headingDegTrue [deg] from the wind and velocity uncertainty (or the logged heading's). */
+  headingSigmaDeg?: Float64Array;
+  /** Added (optional): 1 where the wind used was extrapolated beyond the times/heights of the estimates. */
+  windExtrapolated?: Uint8Array;
+  /** Added (optional): where the wind used at each sample came from. */
+  windSource?: WindSource;
 }

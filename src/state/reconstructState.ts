@@ -2,8 +2,10 @@
 // choose the wind, derive air data and pseudo-attitude. Pure: the log is not modified.
 import { OptionError } from '../errors.js';
 import type { FlightLog, LogWarning } from '../log/flightLog.js';
+import { RAD } from '../constants.js';
 import { computeAirData } from './airData.js';
 import type { FlightState } from './flightState.js';
+import { disagreement, loggedAttitude, LOGGED_HEADING_SIGMA_DEG, type VariationAt } from './loggedAttitude.js';
 import { resolveWind } from './resolveWind.js';
 import { segmentAtGaps } from './segmentAtGaps.js';
 import { smoothTrackInSegments, type TrackColumns } from './smoothTrack.js';
@@ -12,8 +14,14 @@ import type { WindOption } from './windOption.js';
 
 /** Options of the state stage. Every field is optional; defaults are stated beside each. */
 export interface StateOptions {
-  /** Wind: calm, given (from, true; m/s), or auto. Default auto. */
+  /** Wind: calm, given (from, true; m/s), table, or auto (log air data → turns → fallback → calm). Default auto. */
   wind?: WindOption;
+  /** Least air-vector arc [deg] of a turn used for a wind fit, 60..360. Default 120. */
+  minArcDeg?: number;
+  /** Use the log's heading, roll, pitch and TAS where it has them. Default true. */
+  useLoggedAttitude?: boolean;
+  /** Variation (east +) at a place and time, to make a logged magnetic heading true. Without it a magnetic heading is not used. */
+  variationAt?: VariationAt;
   /** Assumed angle of attack [deg] for pitch, −5..20. Default 3 [memory, PHYSICS.md §7]. */
   aoaDeg?: number;
   /** Gap threshold [s]. Default max(5 s, 5 × median sampling interval). */
@@ -117,9 +125,24 @@ export function reconstructState(log: FlightLog, opts: StateOptions = {}): Fligh
   if (sm.noAltitudeSegments.length > 0) warnings.push({ code: 'state-no-altitude', message: `${sm.noAltitudeSegments.length} segment(s) without altitude: flight taken level there`, count: sm.noAltitudeSegments.length });
   if (sm.shortSegments.length > 0) warnings.push({ code: 'state-short-segment', message: `${sm.shortSegments.length} segment(s) with fewer than 3 fixes: no velocity there`, count: sm.shortSegments.length });
 
-  // 4. Wind, 5. air data.
-  const wind = resolveWind(opts.wind ?? { kind: 'auto' }, n);
+  // 4. The log's own attitude and air data, then the wind.
+  const useLogged = opts.useLoggedAttitude ?? true;
+  const logged = useLogged
+    ? loggedAttitude(
+        { headingDeg: pick(log.headingDeg), headingRef: log.headingRef, rollDeg: pick(log.rollDeg), pitchDeg: pick(log.pitchDeg), tasMs: pick(log.tasMs) },
+        sm.lat, sm.lon, sm.altM, cols.t, opts.variationAt,
+      )
+    : { warnings: [] };
+  warnings.push(...logged.warnings);
+  const minArcDeg = checkRange('minArcDeg', opts.minArcDeg, 60, 360, 120, 'degrees');
+  const wind = resolveWind(opts.wind ?? { kind: 'auto' }, {
+    t: cols.t, altM: sm.altM, velN: sm.velN, velE: sm.velE, velD: sm.velD, accN: sm.accN, accE: sm.accE,
+    velSigmaMs: sm.velSigmaMs, segment: seg.segment,
+    loggedTasMs: logged.tasMs, loggedHeadingDegTrue: logged.tasMs ? logged.headingDegTrue : undefined, minArcDeg,
+  });
   warnings.push(...wind.warnings);
+
+  // 5. Air data and pseudo-attitude from the track and the wind.
   const air = computeAirData(
     { velN: sm.velN, velE: sm.velE, velD: sm.velD, accN: sm.accN, accE: sm.accE, accD: sm.accD, windN: wind.windN, windE: wind.windE },
     { aoaDeg: opts.aoaDeg, minAirspeedMs: opts.minAirspeedMs, minGroundSpeedMs: opts.minGroundSpeedMs },
@@ -129,6 +152,39 @@ export function reconstructState(log: FlightLog, opts: StateOptions = {}): Fligh
   if (nLow > 0) {
     const spans = flaggedSpans(air.lowSpeed, cols.t, 2 * seg.thresholdS);
     warnings.push({ code: 'state-low-speed', message: `${nLow} sample(s) too slow for heading and bank (taxi or stationary): left undefined (${describeSpans(spans)})`, count: nLow });
+  }
+
+  // Heading 1-sigma from the wind covariance across the air vector and the velocity sigma.
+  const headingSigmaDeg = new Float64Array(n);
+  for (let j = 0; j < n; j++) {
+    const uN = sm.velN[j] - wind.windN[j], uE = sm.velE[j] - wind.windE[j];
+    const vh2 = uN * uN + uE * uE;
+    // Unit vector across the air vector: (−uE, uN)/|u|.
+    const across = (uE * uE * wind.covNN[j] - 2 * uN * uE * wind.covNE[j] + uN * uN * wind.covEE[j]) / vh2;
+    const sv = sm.velSigmaMs[j];
+    headingSigmaDeg[j] = Number.isFinite(air.headingDegTrue[j]) ? Math.sqrt((across + sv * sv) / vh2) * RAD : NaN;
+  }
+
+  // 6. Where the log has heading / attitude / TAS, they are used; how far they disagree is reported.
+  mergeLogged(logged.headingDegTrue, air.headingDegTrue, true, 'heading', '°', warnings, (j) => { headingSigmaDeg[j] = LOGGED_HEADING_SIGMA_DEG; });
+  mergeLogged(logged.rollDeg, air.bankDeg, false, 'bank', '°', warnings);
+  mergeLogged(logged.pitchDeg, air.pitchDeg, false, 'pitch', '°', warnings);
+  mergeLogged(logged.tasMs, air.tasMs, false, 'TAS', ' m/s', warnings);
+
+  // Straight flight on a wind extrapolated beyond the estimates.
+  if (wind.source === 'turn-fit' || wind.source === 'log-air-data') {
+    const flag = new Uint8Array(n);
+    let k = 0;
+    for (let j = 0; j < n; j++) {
+      if (wind.extrapolated[j] === 1 && air.lowSpeed[j] === 0 && Math.abs(air.turnRateDps[j]) < 1 && !Number.isFinite(logged.headingDegTrue?.[j] ?? NaN)) { flag[j] = 1; k++; }
+    }
+    if (k > 0) {
+      warnings.push({
+        code: 'wind-extrapolated',
+        message: `on ${k} sample(s) of straight flight the heading rests on a wind extrapolated beyond the times or heights it was measured at (${describeSpans(flaggedSpans(flag, cols.t, 30))})`,
+        count: k,
+      });
+    }
   }
 
   return {
@@ -158,7 +214,42 @@ export function reconstructState(log: FlightLog, opts: StateOptions = {}): Fligh
     logRow: rows,
     winds: wind.winds,
     warnings,
+    headingSigmaDeg,
+    windExtrapolated: wind.extrapolated,
+    windSource: wind.source,
   };
+}
+
+/**
+ * Puts logged values into the reconstructed column where they are finite and reports how far they
+ * disagreed with the reconstruction (median and 95th percentile of |difference|).
+ */
+function mergeLogged(
+  logged: Float64Array | undefined,
+  derived: Float64Array,
+  angular: boolean,
+  name: string,
+  unit: string,
+  warnings: LogWarning[],
+  onUse?: (j: number) => void,
+): void {
+  if (!logged) return;
+  const d = disagreement(logged, derived, angular);
+  let used = 0;
+  for (let j = 0; j < derived.length; j++) {
+    if (!Number.isFinite(logged[j])) continue;
+    derived[j] = logged[j];
+    used++;
+    onUse?.(j);
+  }
+  if (used === 0) return;
+  warnings.push({
+    code: `state-logged-${name.toLowerCase()}-check`,
+    message: d.n > 0
+      ? `the log's ${name} was used on ${used} sample(s); it differs from the ${name} reconstructed from the track and wind by ${d.median.toFixed(1)}${unit} (median), ${d.p95.toFixed(1)}${unit} (95th percentile) over ${d.n} sample(s)`
+      : `the log's ${name} was used on ${used} sample(s); no reconstructed ${name} to compare it with`,
+    count: used,
+  });
 }
 
 function pushFlagWarning(
