@@ -45,6 +45,8 @@ interface PointText {
   lon: number;
   ele?: string;
   time?: string;
+  speed?: string;
+  course?: string;
 }
 
 /**
@@ -79,6 +81,18 @@ export function parseGpx(text: string, file: string): FlightLog {
   let captured = '';
   let xmlError: { message: string; line: number; atEnd: boolean } | undefined;
   let atEnd = false;
+  let authorName: string | undefined;
+  let trackSrc: string | undefined;
+  // Route (first rte) and waypoints (wpt): kept apart from the samples, in file order.
+  const routeLat: number[] = [];
+  const routeLon: number[] = [];
+  const routeNames: string[] = [];
+  const wptLat: number[] = [];
+  const wptLon: number[] = [];
+  const wptNames: string[] = [];
+  let routeName: string | undefined;
+  let routesSeen = 0;
+  let pendingMark: { route: boolean; name: string } | undefined;
 
   parser.on('error', (err) => {
     if (!xmlError) xmlError = { message: stripPosition(err.message), line: parser.line, atEnd };
@@ -111,9 +125,47 @@ export function parseGpx(text: string, file: string): FlightLog {
       };
       return;
     }
-    if (name === 'rtept' || (name === 'wpt' && parent === 'gpx')) routeOrWaypoints++;
+    if (name === 'rte' && parent === 'gpx') routesSeen++;
+    if ((name === 'rtept' && parent === 'rte' && routesSeen === 1) || (name === 'wpt' && parent === 'gpx')) {
+      routeOrWaypoints++;
+      const lat = parseDecimal(tag.attributes.lat as string | undefined);
+      const lon = parseDecimal(tag.attributes.lon as string | undefined);
+      const isRoute = name === 'rtept';
+      (isRoute ? routeLat : wptLat).push(lat);
+      (isRoute ? routeLon : wptLon).push(lon);
+      (isRoute ? routeNames : wptNames).push('');
+      pendingMark = { route: isRoute, name: '' };
+      return;
+    } else if (name === 'rtept') routeOrWaypoints++;
+    if (pendingMark && name === 'name' && (parent === 'rtept' || parent === 'wpt')) {
+      capture = 'mark/name';
+      captured = '';
+      return;
+    }
+    if (name === 'name' && parent === 'rte' && routesSeen === 1 && routeName === undefined) {
+      capture = 'rte/name';
+      captured = '';
+      return;
+    }
     if (point && parent === 'trkpt' && (name === 'ele' || name === 'time')) {
       capture = name;
+      captured = '';
+      return;
+    }
+    // Ground speed and course: GPX 1.0 <speed> (m/s) and <course> (degrees true) as trkpt children, and
+    // the same names inside <extensions> (e.g. Garmin TrackPointExtension v2 speed m/s, course degrees).
+    if (point && (name === 'speed' || name === 'course') && stack.includes('trkpt')) {
+      capture = name;
+      captured = '';
+      return;
+    }
+    if (name === 'name' && parent === 'author' && stack[stack.length - 3] === 'metadata') {
+      capture = 'author/name';
+      captured = '';
+      return;
+    }
+    if (name === 'src' && parent === 'trk') {
+      capture = 'trk/src';
       captured = '';
       return;
     }
@@ -134,6 +186,14 @@ export function parseGpx(text: string, file: string): FlightLog {
     if (capture !== undefined) {
       if (point && capture === 'ele') point.ele = captured;
       else if (point && capture === 'time') point.time = captured;
+      else if (point && capture === 'speed' && point.speed === undefined) point.speed = captured;
+      else if (point && capture === 'course' && point.course === undefined) point.course = captured;
+      else if (capture === 'mark/name' && pendingMark) {
+        const names = pendingMark.route ? routeNames : wptNames;
+        names[names.length - 1] = toPlainText(captured) ?? '';
+      } else if (capture === 'rte/name') routeName = toPlainText(captured);
+      else if (capture === 'author/name' && authorName === undefined) authorName = toPlainText(captured);
+      else if (capture === 'trk/src' && trackSrc === undefined) trackSrc = toPlainText(captured);
       else if (capture === 'trk/name' && trackName === undefined) trackName = toPlainText(captured);
       else if (capture === 'trk/desc' && trackDesc === undefined) trackDesc = toPlainText(captured);
       else if (capture === 'metadata/name' && metaName === undefined) metaName = toPlainText(captured);
@@ -147,9 +207,14 @@ export function parseGpx(text: string, file: string): FlightLog {
         const ele = parseDecimal(point.ele);
         // A <time> that does not parse becomes NaN here; the cleaner drops and reports it with its line.
         rows.addRow(parseIsoDateTime(point.time, 0), point.lat, point.lon, ele, point.line);
+        const speed = parseDecimal(point.speed);
+        if (Number.isFinite(speed) || rows.has('gsMs')) rows.set('gsMs', speed);
+        const course = parseDecimal(point.course);
+        if (Number.isFinite(course) || rows.has('trackDegTrue')) rows.set('trackDegTrue', course);
       }
       point = undefined;
     }
+    if (name === 'rtept' || name === 'wpt') pendingMark = undefined;
     if (stack.length === 0) rootClosed = true;
   });
 
@@ -213,14 +278,15 @@ export function parseGpx(text: string, file: string): FlightLog {
     warnings.push({ code: 'gpx-version', message: `GPX version "${version}" is not 1.1 or 1.0; read as GPX 1.1.` });
   }
 
-  return rows.build({
+  const log = rows.build({
     format: 'gpx',
     file,
     warnings,
     meta: {
       name: trackName ?? metaName,
       comment: trackDesc ?? metaDesc,
-      device: creator !== '' ? toPlainText(creator) : undefined,
+      pilot: authorName,
+      device: trackSrc ?? (creator !== '' ? toPlainText(creator) : undefined),
     },
     altDatum: 'msl',
     reader: {
@@ -229,4 +295,10 @@ export function parseGpx(text: string, file: string): FlightLog {
       truncated,
     },
   });
+  if (routeLat.length > 0) {
+    log.route = { name: routeName, lat: Float64Array.from(routeLat), lon: Float64Array.from(routeLon), names: routeNames };
+  } else if (wptLat.length > 0) {
+    log.route = { lat: Float64Array.from(wptLat), lon: Float64Array.from(wptLon), names: wptNames };
+  }
+  return log;
 }

@@ -141,6 +141,7 @@ export function cleanLog(log: FlightLog): { log: FlightLog; health: LogHealth } 
     if (col) cleaned[name] = gather(col, name);
   }
   if (log.headingRef !== undefined) cleaned.headingRef = log.headingRef;
+  if (log.route !== undefined) cleaned.route = log.route;
   pushTally(
     warnings,
     'invalid-value',

@@ -78,6 +78,19 @@ export interface FlightLog {
   tasMs?: Float64Array;
   iasMs?: Float64Array;
   hAccM?: Float64Array;
+  /**
+   * A planned route or waypoint list carried by the file (GPX rte/rtept, else wpt), not flown samples:
+   * lat/lon [deg WGS-84] in file order, `names` ('' where a point has none). Optional; set by importers.
+   */
+  route?: LogRoute;
+}
+
+/** A route or list of waypoints from a log file (see FlightLog.route). */
+export interface LogRoute {
+  name?: string;
+  lat: Float64Array;
+  lon: Float64Array;
+  names: string[];
 }
 
 /** Names of the optional numeric columns of a FlightLog. */

@@ -94,6 +94,56 @@ describe('parseGpx: GPX 1.1 tracks (GPX 1.1 Schema Documentation, topografix.com
   });
 });
 
+describe('parseGpx: speed, course, routes and waypoints', () => {
+  it('reads GPX 1.0 <speed> (m/s) and <course> (degrees true) of a trkpt', () => {
+    // GPX 1.0 schema: trkpt speed "(meters per second)", course "(degrees, true)" [from memory].
+    const text = `<gpx version="1.0" creator="t"><trk><trkseg>
+<trkpt lat="1" lon="2"><time>2026-01-01T00:00:00Z</time><course>271.5</course><speed>45.5</speed></trkpt>
+<trkpt lat="1" lon="2.1"><time>2026-01-01T00:00:01Z</time></trkpt></trkseg></trk></gpx>`;
+    const l = parseGpx(text, 'v10.gpx');
+    expect(l.gsMs![0]).toBe(45.5);
+    expect(l.trackDegTrue![0]).toBe(271.5);
+    expect(l.gsMs![1]).toBeNaN();
+  });
+
+  it('reads speed and course from trkpt extensions (Garmin TrackPointExtension v2: m/s, degrees)', () => {
+    const text = gpx(`<trk><trkseg><trkpt lat="1" lon="2"><time>2026-01-01T00:00:00Z</time>
+<extensions><gpxtpx:TrackPointExtension xmlns:gpxtpx="http://www.garmin.com/xmlschemas/TrackPointExtension/v2"><gpxtpx:speed>50.25</gpxtpx:speed><gpxtpx:course>90</gpxtpx:course></gpxtpx:TrackPointExtension></extensions>
+</trkpt></trkseg></trk>`);
+    const l = parseGpx(text, 'x.gpx');
+    expect(l.gsMs![0]).toBe(50.25);
+    expect(l.trackDegTrue![0]).toBe(90);
+  });
+
+  it('keeps the first route (rte/rtept) with its point names, apart from the samples', () => {
+    const text = gpx(`<wpt lat="9" lon="9"><name>ignored when a route exists</name></wpt>
+<rte><name>Fen navex</name><rtept lat="52.5" lon="-0.25"><name>Harrowgate Fen</name></rtept><rtept lat="52.7" lon="-0.1"><name>Turn 1</name></rtept><rtept lat="52.6" lon="0.1"/></rte>
+<trk><trkseg><trkpt lat="52.5" lon="-0.25"><time>2026-01-01T00:00:00Z</time></trkpt></trkseg></trk>`);
+    const l = parseGpx(text, 'r.gpx');
+    expect(l.route?.name).toBe('Fen navex');
+    expect(Array.from(l.route!.lat)).toEqual([52.5, 52.7, 52.6]);
+    expect(Array.from(l.route!.lon)).toEqual([-0.25, -0.1, 0.1]);
+    expect(l.route!.names).toEqual(['Harrowgate Fen', 'Turn 1', '']);
+    expect(l.t.length).toBe(1);
+  });
+
+  it('keeps waypoints as the route when there is no rte', () => {
+    const text = gpx(`<wpt lat="1" lon="2"><name>A</name></wpt><wpt lat="3" lon="4"><name>B</name></wpt>
+<trk><trkseg><trkpt lat="1" lon="2"><time>2026-01-01T00:00:00Z</time></trkpt></trkseg></trk>`);
+    const l = parseGpx(text, 'w.gpx');
+    expect(l.route!.names).toEqual(['A', 'B']);
+    expect(Array.from(l.route!.lat)).toEqual([1, 3]);
+  });
+
+  it('takes the metadata author as pilot and the track src as device', () => {
+    const text = gpx(`<metadata><author><name>P. Okonkwo-Lindqvist</name></author></metadata>
+<trk><src>Fenbird panel logger</src><trkseg><trkpt lat="1" lon="2"><time>2026-01-01T00:00:00Z</time></trkpt></trkseg></trk>`);
+    const l = parseGpx(text, 'm.gpx');
+    expect(l.source.meta.pilot).toBe('P. Okonkwo-Lindqvist');
+    expect(l.source.meta.device).toBe('Fenbird panel logger');
+  });
+});
+
 describe('parseGpx: broken and unusable documents', () => {
   it('reads a file cut off mid-point up to its last complete trkpt and says where it ended', () => {
     const log = parseGpx(fixture('truncated.gpx'), 'truncated.gpx');
