@@ -37,7 +37,8 @@
     var r = Math.round(Math.abs(d));
     return r === 0 ? '0° (wings level)' : r + '° ' + (d > 0 ? 'right' : 'left');
   }
-  function utc(ms) { return ms === null || !isFinite(ms) ? '–' : new Date(ms).toISOString().slice(11, 19) + 'Z'; }
+  /** hh:mm:ssZ, rounded to the second like the printed tables. */
+  function utc(ms) { return ms === null || !isFinite(ms) ? '–' : new Date(Math.round(ms / 1000) * 1000).toISOString().slice(11, 19) + 'Z'; }
   /** A date-axis value from Plotly ("2026-05-04 10:21:00.5", read as UTC like the data) in ms. */
   function axisMs(v) { return typeof v === 'number' ? v : Date.parse(String(v).replace(' ', 'T') + 'Z'); }
   function elapsed(s) {
@@ -302,6 +303,12 @@
   var planDiv = document.getElementById('plan-plot');
   var tlDiv = document.getElementById('timeline-plot');
   var plan = null, timelineDrawn = false, current = 0, pending = null, pendingSource = '';
+  // After a jump from a table row the page scrolls the charts under a pointer that has not moved; the
+  // browser's synthetic hover must not replace the chosen moment, so hover waits for a real movement.
+  var hoverLocked = false;
+  function unlockOnRealMove(ev) { if (ev.movementX !== 0 || ev.movementY !== 0) hoverLocked = false; }
+  planDiv.addEventListener('pointermove', unlockOnRealMove);
+  tlDiv.addEventListener('pointermove', unlockOnRealMove);
 
   function applyMoment(i, source) {
     current = i;
@@ -356,6 +363,7 @@
       Array.prototype.forEach.call(document.querySelectorAll('tr.jump.current'), function (r) { r.classList.remove('current'); });
       row.classList.add('current');
       stopPlay();
+      hoverLocked = true;
       setMoment(nearestIndex(t * 1000), 'table');
       var t0 = Number(row.getAttribute('data-t0')), t1 = Number(row.getAttribute('data-t1'));
       if (isFinite(t0) && isFinite(t1) && row.getAttribute('data-t0') !== '') zoomTimeline(t0 * 1000, t1 * 1000);
@@ -387,14 +395,14 @@
       plan = pf; performance.mark('plan-drawn');
       planDiv.on('plotly_hover', function (ev) {
         var p = ev.points && ev.points[0];
-        if (p && typeof p.customdata === 'number') { stopPlay(); setMoment(p.customdata, 'plan'); }
+        if (p && typeof p.customdata === 'number' && !hoverLocked) { stopPlay(); setMoment(p.customdata, 'plan'); }
       });
     }),
     Plotly.newPlot(tlDiv, tf.traces, tf.layout, CONFIG).then(function () {
       timelineDrawn = true; performance.mark('timeline-drawn');
       tlDiv.on('plotly_hover', function (ev) {
         var p = ev.points && ev.points[0];
-        if (p && typeof p.customdata === 'number') { stopPlay(); setMoment(p.customdata, 'timeline'); }
+        if (p && typeof p.customdata === 'number' && !hoverLocked) { stopPlay(); setMoment(p.customdata, 'timeline'); }
       });
       tlDiv.on('plotly_relayout', function () {
         var r = tlDiv.layout.xaxis.range;
