@@ -106,8 +106,8 @@ function fitWindow(c: WindFromTurnsInput, w: TurnWindow, minArcDeg: number): Win
   const slope = n > 2 ? (n * std - st * sd) / (n * stt - st * st) : 0;
   const drift = Math.abs(slope * (t1 - t0));
   if (arcDeg < minArcDeg) return reject('arc-too-short', arcDeg, `the air vector turned ${arcDeg.toFixed(0)}°, less than the ${minArcDeg}° a wind fit needs`);
-  if (fit.rmsResidual > MAX_FIT_RMS_MS) return reject('poor-fit', arcDeg, `the ground speeds do not lie on one circle (RMS ${fit.rmsResidual.toFixed(1)} m/s): airspeed or wind changed in the turn`);
   if (drift > MAX_TAS_DRIFT_MS) return reject('speed-change', arcDeg, `the airspeed changed by about ${drift.toFixed(1)} m/s during the turn`);
+  if (fit.rmsResidual > MAX_FIT_RMS_MS) return reject('poor-fit', arcDeg, `the ground speeds do not lie on one circle (RMS ${fit.rmsResidual.toFixed(1)} m/s): airspeed or wind changed in the turn`);
   if (fit.r < 15) return reject('too-slow', arcDeg, `the fitted airspeed ${fit.r.toFixed(1)} m/s is too low for a wind fit`);
   const windMs = Math.hypot(fit.cx, fit.cy);
   if (windMs > 0.8 * fit.r) return reject('implausible', arcDeg, `the fitted wind ${windMs.toFixed(1)} m/s is implausibly strong for the fitted airspeed ${fit.r.toFixed(1)} m/s`);

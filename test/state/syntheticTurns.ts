@@ -29,6 +29,8 @@ export interface FlightSpec {
   lonDeg: number;
   altM: number;
   tasMs: number;
+  /** TAS as a function of time [m/s] when it changes (default: constant tasMs). */
+  tasMsAt?: (tS: number) => number;
   /** Heading as a function of time since start [deg true], with its rate [deg/s] (right +). */
   headingDeg: (tS: number) => number;
   rateDps: (tS: number) => number;
@@ -61,6 +63,7 @@ export function makeFlight(s: FlightSpec): SyntheticFlight {
   const wN = -s.windMs * Math.cos(s.windFromDeg * D2R);
   const wE = -s.windMs * Math.sin(s.windFromDeg * D2R);
   const dt = 0.001;
+  const V = s.tasMsAt ?? ((): number => s.tasMs);
   const place = (northM: number, eastM: number): { lat: number; lon: number } => {
     const d = Math.hypot(northM, eastM);
     if (d === 0) return { lat: s.latDeg, lon: s.lonDeg };
@@ -71,12 +74,12 @@ export function makeFlight(s: FlightSpec): SyntheticFlight {
   const steps = Math.ceil((s.durationS + 1) / dt);
   const pn = new Float64Array(steps + 1);
   const pe = new Float64Array(steps + 1);
-  let prevN = s.tasMs * Math.cos(s.headingDeg(0) * D2R) + wN;
-  let prevE = s.tasMs * Math.sin(s.headingDeg(0) * D2R) + wE;
+  let prevN = V(0) * Math.cos(s.headingDeg(0) * D2R) + wN;
+  let prevE = V(0) * Math.sin(s.headingDeg(0) * D2R) + wE;
   for (let k = 1; k <= steps; k++) {
     const h = s.headingDeg(k * dt) * D2R;
-    const vn = s.tasMs * Math.cos(h) + wN;
-    const ve = s.tasMs * Math.sin(h) + wE;
+    const vn = V(k * dt) * Math.cos(h) + wN;
+    const ve = V(k * dt) * Math.sin(h) + wE;
     pn[k] = pn[k - 1] + 0.5 * (prevN + vn) * dt;
     pe[k] = pe[k - 1] + 0.5 * (prevE + ve) * dt;
     prevN = vn;
@@ -121,7 +124,7 @@ export function makeFlight(s: FlightSpec): SyntheticFlight {
     const vE = gs * Math.sin(trk * D2R) - wE;
     headingDeg[i] = ((Math.atan2(vE, vN) / D2R) % 360 + 360) % 360;
     rateDps[i] = s.rateDps(ts);
-    bankDeg[i] = Math.atan((s.tasMs * s.rateDps(ts) * D2R) / G) / D2R;
+    bankDeg[i] = Math.atan((V(ts) * s.rateDps(ts) * D2R) / G) / D2R;
   }
   const log: FlightLog = {
     source: { format: 'csv', file: 'synthetic.csv', warnings: [], meta: {}, altDatum: 'ellipsoid' },
