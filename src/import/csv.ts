@@ -40,6 +40,18 @@ export function checkCsvOptions(opts: CsvOptions): void {
   }
 }
 
+/**
+ * Rewrites the date part of a date-time written `YYYY/MM/DD hh:mm...` or `DD.MM.YYYY hh:mm...` (the dotted
+ * day-first form of many European locales) as ISO 8601 `YYYY-MM-DD hh:mm...`; other text is returned as is.
+ * Slashed day/month orders (`04/05/2026`) are ambiguous and not rewritten.
+ */
+export function normalizeDateTime(raw: string): string {
+  if (raw.charCodeAt(4) === 47 /* '/' */) return raw.replace(/^(\d{4})\/(\d{2})\/(\d{2})/, '$1-$2-$3');
+  const dotted = /^\s*(\d{1,2})\.(\d{1,2})\.(\d{4})([ T].*)$/.exec(raw);
+  if (dotted) return `${dotted[3]}-${dotted[2].padStart(2, '0')}-${dotted[1].padStart(2, '0')}${dotted[4]}`;
+  return raw;
+}
+
 /** Parses a date written YYYY-MM-DD, YYYY/MM/DD or DD.MM.YYYY to 00:00 UTC of that day [s]; NaN otherwise. */
 function parseDateField(raw: string): number {
   const dotted = /^\s*(\d{1,2})\.(\d{1,2})\.(\d{4})\s*$/.exec(raw);
@@ -142,8 +154,7 @@ export class CsvRowSink {
     if (this.timeKind === 'auto') this.timeKind = this.resolveTimeKind(raw, col, line);
     switch (this.timeKind) {
       case 'iso':
-        if (raw.charCodeAt(4) === 47 /* '/' */) raw = raw.replace(/\//g, '-');
-        return parseIsoDateTime(raw, this.opts.tzOffsetMin ?? 0);
+        return parseIsoDateTime(normalizeDateTime(raw), this.opts.tzOffsetMin ?? 0);
       case 'epoch-s':
         return this.parseNum(raw);
       case 'epoch-ms':
@@ -158,7 +169,7 @@ export class CsvRowSink {
   }
 
   private resolveTimeKind(raw: string, col: CsvColumn, line: number): CsvTimeKind {
-    const iso = raw.charCodeAt(4) === 47 ? raw.replace(/\//g, '-') : raw;
+    const iso = normalizeDateTime(raw);
     if (Number.isFinite(parseIsoDateTime(iso))) {
       if (!isoHasZone(iso) && this.opts.tzOffsetMin === undefined) {
         this.warnings.push({
@@ -274,6 +285,71 @@ export function csvDialectFor(sample: string, opts: CsvOptions): CsvDialect {
 }
 
 /**
+ * Feeds a delimited text to a CsvRowSink in chunks of any size (a file read as a stream): each chunk is
+ * cut after its last line break and the complete lines go through papaparse; the rest waits for the next
+ * chunk. Line numbers continue across chunks. Limitation: a quoted field holding a line break that
+ * straddles two chunks is split (such fields do not occur in flight logs; common practice).
+ */
+export class CsvChunkReader {
+  private readonly sink: CsvRowSink;
+  private readonly dialect: CsvDialect;
+  private readonly nlCode: number;
+  private rest = '';
+  private linesBefore = 0;
+  private first = true;
+
+  constructor(file: string, opts: CsvOptions, sample: string) {
+    this.dialect = csvDialectFor(sample.charCodeAt(0) === 0xfeff ? sample.slice(1) : sample, opts);
+    this.sink = new CsvRowSink(file, opts, this.dialect);
+    this.nlCode = this.dialect.newline === '\r' ? 13 : 10;
+  }
+
+  push(chunk: string): void {
+    let text = this.rest + chunk;
+    if (this.first && text.length > 0) {
+      if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+      this.first = false;
+    }
+    const nl = this.dialect.newline === '\r' ? '\r' : '\n';
+    const cut = text.lastIndexOf(nl);
+    if (cut < 0) {
+      this.rest = text;
+      return;
+    }
+    this.rest = text.slice(cut + 1);
+    this.parse(text.slice(0, cut + 1));
+  }
+
+  /** Parses what is left and returns the log. */
+  end(): FlightLog {
+    const endedWithNewline = this.rest.length === 0;
+    if (this.rest.length > 0) this.parse(this.rest);
+    this.rest = '';
+    return this.sink.finish(endedWithNewline);
+  }
+
+  private parse(body: string): void {
+    const nlCode = this.nlCode;
+    let scan = 0;
+    let newlines = this.linesBefore;
+    Papa.parse<string[]>(body, {
+      delimiter: this.dialect.delimiter,
+      newline: this.dialect.newline,
+      skipEmptyLines: false,
+      step: (result) => {
+        const cursor = result.meta.cursor;
+        for (; scan < cursor; scan++) if (body.charCodeAt(scan) === nlCode) newlines++;
+        const line = cursor > 0 && body.charCodeAt(cursor - 1) === nlCode ? newlines : newlines + 1;
+        const trouble = result.errors.some((e) => e.type === 'Quotes');
+        this.sink.row(result.data, line, trouble);
+      },
+    });
+    for (; scan < body.length; scan++) if (body.charCodeAt(scan) === nlCode) newlines++;
+    this.linesBefore = newlines;
+  }
+}
+
+/**
  * Reads a delimited-text flight log (format 'csv'). Columns are found by header name and unit
  * (see planCsvColumns): time (ISO 8601 with Z or offset, Unix s/ms/µs, or time of day with a date),
  * lat/lon [deg], altitude (m or ft), and where present ground speed, track, heading, bank, pitch,
@@ -282,27 +358,14 @@ export function csvDialectFor(sample: string, opts: CsvOptions): CsvDialect {
  *   OptionError for bad options.
  */
 export function parseCsv(text: string, file: string, opts: CsvOptions = {}): FlightLog {
-  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
-  const dialect = csvDialectFor(body.slice(0, 65536), opts);
-  const sink = new CsvRowSink(file, opts, dialect);
-  const nlCode = dialect.newline === '\r' ? 13 : 10;
-  let scan = 0;
-  let newlines = 0;
-  let rowsSeen = 0;
-  Papa.parse<string[]>(body, {
-    delimiter: dialect.delimiter,
-    newline: dialect.newline,
-    skipEmptyLines: false,
-    step: (result) => {
-      const cursor = result.meta.cursor;
-      for (; scan < cursor; scan++) if (body.charCodeAt(scan) === nlCode) newlines++;
-      const line = cursor > 0 && body.charCodeAt(cursor - 1) === nlCode ? newlines : newlines + 1;
-      const trouble = result.errors.some((e) => e.type === 'Quotes');
-      sink.row(result.data, line, trouble);
-      if (opts.onProgress && ++rowsSeen % 65536 === 0) opts.onProgress(cursor / Math.max(1, body.length));
-    },
-  });
+  const reader = new CsvChunkReader(file, opts, text.slice(0, 65536));
+  // Large texts go in slices so that progress can be reported; the result does not depend on the slicing.
+  const slice = 4 * 1024 * 1024;
+  for (let i = 0; i < text.length; i += slice) {
+    reader.push(text.slice(i, i + slice));
+    opts.onProgress?.(Math.min(1, (i + slice) / Math.max(1, text.length)));
+  }
+  const log = reader.end();
   opts.onProgress?.(1);
-  const last = body.charCodeAt(body.length - 1);
-  return sink.finish(last === 10 || last === 13);
+  return log;
 }

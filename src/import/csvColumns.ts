@@ -61,6 +61,9 @@ export const ROLE_COLUMN: Partial<Record<CsvRole, OptionalColumn>> = {
 /** Lower-case word tokens of a header: `GPS Alt (ft)` → gps alt ft, `altitudeFt` → altitude ft, `m/s` → m s. */
 export function headerTokens(header: string): string[] {
   return header
+    .normalize('NFD')
+    .replace(/[\u0300-\u036f]/g, '') // Höhe → Hohe, Länge → Lange (diacritics dropped)
+    .replace(/ß/g, 'ss')
     .replace(/([a-z])([A-Z])/g, '$1 $2')
     .toLowerCase()
     .replace(/°/g, ' deg ')
@@ -84,17 +87,18 @@ export function roleOfHeader(tk: Tokens): CsvRole | undefined {
   }
   if (any(tk, 'tas', 'ktas') || (tk.has('true') && any(tk, 'airspeed', 'air'))) return 'tas';
   if (any(tk, 'ias', 'kias', 'cas', 'airspeed', 'indicated') || (tk.has('air') && tk.has('speed'))) return 'ias';
-  if (any(tk, 'lat', 'latitude')) return 'lat';
-  if (any(tk, 'lon', 'lng', 'long', 'longitude')) return 'lon';
-  if (any(tk, 'roll', 'bank')) return 'roll';
-  if (tk.has('pitch')) return 'pitch';
-  if (any(tk, 'heading', 'hdg', 'yaw')) return 'heading';
-  if (any(tk, 'track', 'trk', 'course', 'cog', 'crs') && !any(tk, 'name', 'id', 'number')) return 'track';
-  if (any(tk, 'gs', 'groundspeed', 'speed', 'spd', 'sog', 'velocity', 'vel')) return 'gs';
-  if (any(tk, 'hacc', 'eph', 'accuracy', 'acc')) return 'hacc';
-  if (any(tk, 'alt', 'altitude', 'elevation', 'ele', 'height', 'msl', 'gpsalt', 'altm', 'altft')) return 'alt';
-  if (any(tk, 'time', 'timestamp', 'datetime', 'utc', 'epoch', 'unix', 'timeutc')) return 'time';
-  if (tk.has('date')) return 'date';
+  // English, then German and French spellings (diacritics dropped by headerTokens).
+  if (any(tk, 'lat', 'latitude', 'breite', 'breitengrad')) return 'lat';
+  if (any(tk, 'lon', 'lng', 'long', 'longitude', 'lange', 'laenge', 'langengrad', 'laengengrad')) return 'lon';
+  if (any(tk, 'roll', 'bank', 'rollwinkel', 'querneigung', 'roulis', 'inclinaison')) return 'roll';
+  if (any(tk, 'pitch', 'nick', 'nickwinkel', 'tangage', 'assiette')) return 'pitch';
+  if (any(tk, 'heading', 'hdg', 'yaw', 'steuerkurs', 'cap')) return 'heading';
+  if (any(tk, 'track', 'trk', 'course', 'cog', 'crs', 'kurs') && !any(tk, 'name', 'id', 'number')) return 'track';
+  if (any(tk, 'gs', 'groundspeed', 'speed', 'spd', 'sog', 'velocity', 'vel', 'geschwindigkeit', 'vitesse')) return 'gs';
+  if (any(tk, 'hacc', 'eph', 'accuracy', 'acc', 'genauigkeit')) return 'hacc';
+  if (any(tk, 'alt', 'altitude', 'elevation', 'ele', 'height', 'msl', 'gpsalt', 'altm', 'altft', 'hohe', 'hoehe')) return 'alt';
+  if (any(tk, 'time', 'timestamp', 'datetime', 'utc', 'epoch', 'unix', 'timeutc', 'zeit', 'uhrzeit', 'zeitstempel', 'heure', 'horodatage')) return 'time';
+  if (any(tk, 'date', 'datum')) return 'date';
   return undefined;
 }
 
