@@ -1,11 +1,12 @@
 // Options of the debrief analyses: each with its unit, allowed range, default and where the default comes from.
 import { OptionError } from '../errors.js';
 
-/** A planned route: waypoints in order (WGS-84 degrees), e.g. from a GPX route. */
+/** A planned route: waypoints in order, lat/lon WGS-84 degrees (FlightLog.route, a LogRoute, fits as it is). */
 export interface PlannedRoute {
-  latDeg: ArrayLike<number>;
-  lonDeg: ArrayLike<number>;
+  lat: ArrayLike<number>;
+  lon: ArrayLike<number>;
   names?: string[];
+  name?: string;
 }
 
 /** Everything analyseDebrief can be told. Every field is optional. */
@@ -14,7 +15,7 @@ export interface DebriefOptions {
   planCsvText?: string;
   /** A span flown on the compass [UTC s]; when given, only this span is analysed as an excursion. */
   excursion?: { startT: number; endT: number };
-  /** Planned route, for cross-track against the plan (optional). */
+  /** Planned route, for cross-track against the plan (optional; pass FlightLog.route). */
   route?: PlannedRoute;
   /** Roll-out tolerance ± [deg], (0, 90]. Default 10: FAA Instrument Rating ACS heading ±10° (from memory, PHYSICS.md §2). */
   toleranceDeg?: number;
@@ -180,12 +181,12 @@ export function resolveDebriefOptions(o: DebriefOptions = {}): ResolvedDebriefOp
   }
   if (o.route !== undefined) {
     const r = o.route;
-    if (!r.latDeg || !r.lonDeg || r.latDeg.length !== r.lonDeg.length || r.latDeg.length < 2) {
+    if (!r.lat || !r.lon || r.lat.length !== r.lon.length || r.lat.length < 2) {
       throw new OptionError('route', 'needs at least two waypoints with as many latitudes as longitudes');
     }
-    for (let i = 0; i < r.latDeg.length; i++) {
-      if (!(Math.abs(r.latDeg[i]) <= 90 && Number.isFinite(r.lonDeg[i]))) {
-        throw new OptionError('route', `waypoint ${i + 1} has no valid position (${String(r.latDeg[i])}, ${String(r.lonDeg[i])})`);
+    for (let i = 0; i < r.lat.length; i++) {
+      if (!(Math.abs(r.lat[i]) <= 90 && Number.isFinite(r.lon[i]))) {
+        throw new OptionError('route', `waypoint ${i + 1} has no valid position (${String(r.lat[i])}, ${String(r.lon[i])})`);
       }
     }
   }

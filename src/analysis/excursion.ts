@@ -142,10 +142,10 @@ function circularMean(col: Float64Array, i0: number, i1: number): number {
 function nearestRouteLeg(route: PlannedRoute, latDeg: number, lonDeg: number): number {
   let best = 0;
   let bestD = Infinity;
-  for (let k = 0; k + 1 < route.latDeg.length; k++) {
-    const az = rhumbAzimuthDeg(route.latDeg[k], route.lonDeg[k], route.latDeg[k + 1], route.lonDeg[k + 1]);
-    const len = rhumbOffsetM(route.latDeg[k], route.lonDeg[k], az, route.latDeg[k + 1], route.lonDeg[k + 1]).alongM;
-    const p = rhumbOffsetM(route.latDeg[k], route.lonDeg[k], az, latDeg, lonDeg);
+  for (let k = 0; k + 1 < route.lat.length; k++) {
+    const az = rhumbAzimuthDeg(route.lat[k], route.lon[k], route.lat[k + 1], route.lon[k + 1]);
+    const len = rhumbOffsetM(route.lat[k], route.lon[k], az, route.lat[k + 1], route.lon[k + 1]).alongM;
+    const p = rhumbOffsetM(route.lat[k], route.lon[k], az, latDeg, lonDeg);
     const beyond = p.alongM < 0 ? -p.alongM : p.alongM > len ? p.alongM - len : 0;
     const d = Math.hypot(p.crossM, beyond);
     if (d < bestD) {
@@ -208,9 +208,9 @@ export function analyseExcursion(
   if (route) {
     const mid = (i0 + i1) >> 1;
     const k = nearestRouteLeg(route, lat[mid], lon[mid]);
-    const az = rhumbAzimuthDeg(route.latDeg[k], route.lonDeg[k], route.latDeg[k + 1], route.lonDeg[k + 1]);
-    const a = rhumbOffsetM(route.latDeg[k], route.lonDeg[k], az, lat[i0], lon[i0]).crossM;
-    const b = rhumbOffsetM(route.latDeg[k], route.lonDeg[k], az, lat[i1], lon[i1]).crossM;
+    const az = rhumbAzimuthDeg(route.lat[k], route.lon[k], route.lat[k + 1], route.lon[k + 1]);
+    const a = rhumbOffsetM(route.lat[k], route.lon[k], az, lat[i0], lon[i0]).crossM;
+    const b = rhumbOffsetM(route.lat[k], route.lon[k], az, lat[i1], lon[i1]).crossM;
     const rp = integrateParts(state, field, compass, i0, i1, az);
     result.route = {
       legIndex: k,

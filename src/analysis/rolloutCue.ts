@@ -20,7 +20,7 @@ export function cueHeadingMagDeg(targetMagDeg: number, dir: 1 | -1, rolloutLeadD
  * tan ψc = (sin ψm cos φ − tan μ sin φ) / cos ψm with φ = dir × bank (Williams eq. 2, src/compass/turningError.ts).
  * This is the static card; add the dynamic card's offset (lag, swirl) and deviation separately where known.
  * @returns compass reading [0, 360) at which to begin the roll-out; NaN if an input is not finite.
- * @example NH dip 66.5, 16.9° bank, right turn onto 000 with a 3° roll-out lead → reading ≈ 323 (lag ≈ 34°).
+ * @example NH dip 66.5, 16.9° bank, right turn onto 000 with a 3° roll-out lead → reading ≈ 324.3 (roll out 36° before the card shows N).
  */
 // Source: Williams, "Compass Errors" (2001) eq. 2 via levelTurnReadingDeg; PHYSICS.md §1.2.
 export function modelCueCompassDeg(targetMagDeg: number, dir: 1 | -1, bankDeg: number, dipDeg: number, rolloutLeadDeg: number): number {
