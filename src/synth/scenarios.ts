@@ -7,6 +7,7 @@ import type { CsvWriteOptions } from './writeCsv.js';
 import type { GpsNoiseOptions } from './gpsNoise.js';
 import { legDurationS, planLeg } from './legPlan.js';
 import { mulberry32 } from './seededRandom.js';
+import type { PilotScript } from './scriptedPilot.js';
 
 /** The fictional "Harrowgate Fen Airstrip" (invented; open fenland), runway 25. */
 export const HARROWGATE_FEN = { latDeg: 52.612, lonDeg: 0.387, elevationM: 5 } as const;
@@ -289,5 +290,51 @@ export function benchFlight(hours = 3, hz = 10): FlightScript {
     wind: { table: [{ altM: 0, fromDegTrue: 230, speedMs: 5 }, { altM: 1500, fromDegTrue: 260, speedMs: 12 }, { altM: 3000, fromDegTrue: 280, speedMs: 20 }] },
     sampleRateHz: hz,
     legs,
+  };
+}
+
+/**
+ * A compass-turn lesson for a scripted pilot (src/synth/scriptedPilot.ts) at Harrowgate Fen Airstrip,
+ * 2026-05-04 11:00Z, 10 Hz (decisions on the card every 0.1 s), 2000 ft, 95 kt, wind 250/15 kt: standard-rate
+ * compass turns onto magnetic north and south from east and west, both ways, onto east and west, and one
+ * beyond 180°, with 20 s straights between them. Fly it with each RolloutTechnique to compare the roll-outs.
+ */
+export function compassTurnLessonScript(): PilotScript {
+  const v = SCENARIO_VARIATION_DEG.circuit;
+  const turn = (toMagDeg: number, direction: 'left' | 'right', label: string): PilotScript['legs'][number] => ({
+    kind: 'compass-turn', toMagDeg, direction, label,
+  });
+  const settle = { kind: 'straight', durationS: 20 } as const;
+  return {
+    name: 'Compass-turn lesson, Harrowgate Fen Airstrip',
+    start: {
+      t0: Date.UTC(2026, 4, 4, 11, 0, 0) / 1000,
+      latDeg: HARROWGATE_FEN.latDeg,
+      lonDeg: HARROWGATE_FEN.lonDeg,
+      altM: ft(2000),
+      headingDegTrue: trueOf(90, v),
+      tasMs: kt(95),
+    },
+    wind: { fromDegTrue: 250, speedMs: kt(15) },
+    sampleRateHz: 10,
+    legs: [
+      settle,
+      turn(0, 'left', 'east onto north, left'),
+      settle,
+      turn(90, 'right', 'north onto east, right'),
+      settle,
+      turn(180, 'right', 'east onto south, right'),
+      settle,
+      turn(270, 'right', 'south onto west, right'),
+      settle,
+      turn(0, 'right', 'west onto north, right'),
+      settle,
+      turn(270, 'left', 'north onto west, left'),
+      settle,
+      turn(180, 'left', 'west onto south, left'),
+      settle,
+      turn(0, 'left', 'south onto north through east, left'),
+      settle,
+    ],
   };
 }
