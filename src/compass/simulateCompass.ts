@@ -110,7 +110,9 @@ export function simulateCompass(
   const n = state.n;
   if (field.n !== n) throw new OptionError('field', `has ${field.n} samples, the flight state ${n}`);
 
-  const { t, headingDegTrue, pitchDeg, bankDeg, accN, accE, accD, turnRateDps, segment } = state;
+  const { t, headingDegTrue, bankDeg, accN, accE, accD, turnRateDps, segment } = state;
+  // The lubber line's axes: cardPitchDeg where the state gives it (wind axes or logged attitude), else pitch.
+  const pitchDeg = state.cardPitchDeg ?? state.pitchDeg;
   const { xNt, yNt, zNt, variationDeg, zone } = field;
 
   const eps = magnetPerPendulosityFromResidualDip(profile.residualDipDeg, profile.refHorizontalNt, profile.refVerticalNt);

@@ -43,6 +43,8 @@ export interface AirData {
   headingDegTrue: Float64Array;
   bankDeg: Float64Array;
   pitchDeg: Float64Array;
+  /** Flight-path angle γ of the air vector [deg], climb +. */
+  flightPathDeg: Float64Array;
   turnRateDps: Float64Array;
   accelLongMs2: Float64Array;
   /** 1 where the sample was too slow for attitude (heading, bank, pitch, turn rate, accelLong NaN). */
@@ -68,7 +70,7 @@ export function checkAirDataOptions(o: AirDataOptions): Required<AirDataOptions>
  *   x_w = unit(v_a), y_w = unit(e_z × x_w), z_w = x_w × y_w, f = a − g e_z, φ = atan2(f·y_w, −f·z_w),
  *   right wing down +; in a level coordinated turn this is tan φ = V ω / g;
  * - turn rate ω = (v_a × a)_z / |v_a,h|² (heading rate with a steady wind) [deg/s], right +;
- * - pitch θ ≈ γ + α cos φ with γ = atan2(−v_aD, |v_a,h|) and α the assumed angle of attack (PHYSICS.md §7);
+ * - flight-path angle γ and pitch θ ≈ γ + α cos φ with γ = atan2(−v_aD, |v_a,h|) and α the assumed angle of attack (PHYSICS.md §7);
  * - accelLong = a · x_b, x_b = (cos θ cos ψ, cos θ sin ψ, −sin θ): kinematic acceleration along the nose,
  *   forward + [m/s²] (gravity not included).
  * Where TAS < minAirspeedMs or ground speed < minGroundSpeedMs, heading, bank, pitch, turn rate and
@@ -84,6 +86,7 @@ export function computeAirData(inp: AirDataInput, opts: AirDataOptions = {}): Ai
     headingDegTrue: new Float64Array(n),
     bankDeg: new Float64Array(n),
     pitchDeg: new Float64Array(n),
+    flightPathDeg: new Float64Array(n),
     turnRateDps: new Float64Array(n),
     accelLongMs2: new Float64Array(n),
     lowSpeed: new Uint8Array(n),
@@ -106,6 +109,7 @@ export function computeAirData(inp: AirDataInput, opts: AirDataOptions = {}): Ai
       out.headingDegTrue[i] = NaN;
       out.bankDeg[i] = NaN;
       out.pitchDeg[i] = NaN;
+      out.flightPathDeg[i] = NaN;
       out.turnRateDps[i] = NaN;
       out.accelLongMs2[i] = NaN;
       continue;
@@ -123,6 +127,7 @@ export function computeAirData(inp: AirDataInput, opts: AirDataOptions = {}): Ai
     out.bankDeg[i] = phi * RAD;
     out.turnRateDps[i] = ((uN * aE - uE * aN) / uh2) * RAD;
     const gamma = Math.atan2(-uD, uh);
+    out.flightPathDeg[i] = gamma * RAD;
     const theta = gamma + alpha * Math.cos(phi);
     out.pitchDeg[i] = theta * RAD;
     const ct = Math.cos(theta);

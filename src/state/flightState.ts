@@ -55,6 +55,12 @@ export interface FlightState {
   headingDegTrue: Float64Array;
   bankDeg: Float64Array;
   pitchDeg: Float64Array;
+  /**
+   * Pitch of the axes the compass stage builds the lubber line from [deg]: the flight-path angle where the
+   * attitude is reconstructed (body axes = wind axes), the logged pitch where the log has one. Optional:
+   * without it the compass uses pitchDeg.
+   */
+  cardPitchDeg?: Float64Array;
   turnRateDps: Float64Array;
   accelLongMs2: Float64Array;
   /** Segment id per sample: a new segment starts after each gap. */

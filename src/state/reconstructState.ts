@@ -4,6 +4,7 @@ import { OptionError } from '../errors.js';
 import type { FlightLog, LogWarning } from '../log/flightLog.js';
 import { RAD } from '../constants.js';
 import { computeAirData } from './airData.js';
+import { DEFAULT_SPEED_JERK_PSD, smoothAlongTrackAcceleration } from './alongTrackAcceleration.js';
 import type { FlightState } from './flightState.js';
 import { disagreement, loggedAttitude, LOGGED_HEADING_SIGMA_DEG, type VariationAt } from './loggedAttitude.js';
 import { resolveWind } from './resolveWind.js';
@@ -36,6 +37,8 @@ export interface StateOptions {
   jerkPsdH?: number;
   /** Jerk PSD of the vertical axis [m²/s⁵], 0.001..1000. Default 0.5 [practice]. */
   jerkPsdV?: number;
+  /** Jerk PSD of the airspeed model for the along-track acceleration [m²/s⁷], 1e-6..10. Default DEFAULT_SPEED_JERK_PSD (3e-4). */
+  speedJerkPsd?: number;
   /** Use the log's ground speed/track as velocity measurements. Default true. */
   useLogVelocity?: boolean;
   /** Innovation gating of fixes (chi-square 99 %). Default true. */
@@ -142,9 +145,17 @@ export function reconstructState(log: FlightLog, opts: StateOptions = {}): Fligh
   });
   warnings.push(...wind.warnings);
 
-  // 5. Air data and pseudo-attitude from the track and the wind.
+  // 5. The along-track part of the acceleration on its own, slower time scale (speed changes are slow,
+  // turns are not); without it, GPS noise in dV/dt shows as spurious acceleration error at high dip.
+  const speedJerkPsd = checkRange('speedJerkPsd', opts.speedJerkPsd, 1e-6, 10, DEFAULT_SPEED_JERK_PSD, 'm²/s⁷');
+  const acc = smoothAlongTrackAcceleration(
+    { t: cols.t, segmentStarts: seg.starts, velN: sm.velN, velE: sm.velE, accN: sm.accN, accE: sm.accE, windN: wind.windN, windE: wind.windE, velSigmaMs: sm.velSigmaMs },
+    speedJerkPsd,
+  );
+
+  // 6. Air data and pseudo-attitude from the track and the wind.
   const air = computeAirData(
-    { velN: sm.velN, velE: sm.velE, velD: sm.velD, accN: sm.accN, accE: sm.accE, accD: sm.accD, windN: wind.windN, windE: wind.windE },
+    { velN: sm.velN, velE: sm.velE, velD: sm.velD, accN: acc.accN, accE: acc.accE, accD: sm.accD, windN: wind.windN, windE: wind.windE },
     { aoaDeg: opts.aoaDeg, minAirspeedMs: opts.minAirspeedMs, minGroundSpeedMs: opts.minGroundSpeedMs },
   );
   let nLow = 0;
@@ -165,7 +176,14 @@ export function reconstructState(log: FlightLog, opts: StateOptions = {}): Fligh
     headingSigmaDeg[j] = Number.isFinite(air.headingDegTrue[j]) ? Math.sqrt((across + sv * sv) / vh2) * RAD : NaN;
   }
 
-  // 6. Where the log has heading / attitude / TAS, they are used; how far they disagree is reported.
+  // The card's geometry: with no logged attitude the body axes are the wind axes (nose along the air
+  // vector, pitch = flight-path angle, bank = pseudo-roll about the air vector). The lubber line lies in
+  // the symmetry plane, which holds both the air vector and the lift, so the angle of attack does not move
+  // the reading (PHYSICS.md §1.1); a logged pitch (nose attitude) replaces γ below.
+  const cardPitchDeg = Float64Array.from(air.flightPathDeg);
+  if (logged.pitchDeg) for (let j = 0; j < n; j++) if (Number.isFinite(logged.pitchDeg[j])) cardPitchDeg[j] = logged.pitchDeg[j];
+
+  // 7. Where the log has heading / attitude / TAS, they are used; how far they disagree is reported.
   mergeLogged(logged.headingDegTrue, air.headingDegTrue, true, 'heading', '°', warnings, (j) => { headingSigmaDeg[j] = LOGGED_HEADING_SIGMA_DEG; });
   mergeLogged(logged.rollDeg, air.bankDeg, false, 'bank', '°', warnings);
   mergeLogged(logged.pitchDeg, air.pitchDeg, false, 'pitch', '°', warnings);
@@ -196,8 +214,8 @@ export function reconstructState(log: FlightLog, opts: StateOptions = {}): Fligh
     velN: sm.velN,
     velE: sm.velE,
     velD: sm.velD,
-    accN: sm.accN,
-    accE: sm.accE,
+    accN: acc.accN,
+    accE: acc.accE,
     accD: sm.accD,
     accSigmaMs2: sm.accSigmaMs2,
     gsMs: air.gsMs,
@@ -208,6 +226,7 @@ export function reconstructState(log: FlightLog, opts: StateOptions = {}): Fligh
     headingDegTrue: air.headingDegTrue,
     bankDeg: air.bankDeg,
     pitchDeg: air.pitchDeg,
+    cardPitchDeg,
     turnRateDps: air.turnRateDps,
     accelLongMs2: air.accelLongMs2,
     segment: seg.segment,
