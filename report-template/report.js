@@ -187,7 +187,7 @@
       for (var k in props) t[k] = props[k];
       return t;
     }
-    var hdgHover = '%{y:.0f}°';
+    var hdgHover = '%{y:03.0f}°';
     var traces = [
       tr(S.trackTrueDeg, true, { name: 'True track', line: { color: OI.black, width: 1.2, dash: 'dot' }, hovertemplate: hdgHover }),
       tr(S.headingTrueDeg, true, { name: 'True heading', line: { color: OI.sky, width: 1.6, dash: 'dash' }, hovertemplate: hdgHover }),
@@ -206,6 +206,16 @@
       if (d.showLabel) annotations.push({ xref: 'x', yref: 'paper', x: d.peakUtc * 1000, y: 1, yanchor: 'top', text: d.label, showarrow: false,
         font: { size: 11, color: '#6b4a00' }, bgcolor: 'rgba(255,255,255,0.85)' });
     });
+    // Turn and speed-change labels (T1…, S1…) on the bank and acceleration panels, as in the tables.
+    function eventLabels(list, yref, colour) {
+      if (list.length > 60) return;
+      list.forEach(function (ev) {
+        annotations.push({ xref: 'x', yref: yref, x: (ev.startUtc + ev.endUtc) * 500, y: 1, yanchor: 'bottom', text: ev.label, showarrow: false,
+          font: { size: 10, color: colour } });
+      });
+    }
+    eventLabels(data.turns, 'y3 domain', '#7a3d63');
+    eventLabels(data.episodes, 'y4 domain', '#00644a');
     data.unreliableSpans.forEach(function (u) {
       shapes.push({ type: 'rect', xref: 'x', yref: 'y2 domain', x0: u.t0Utc * 1000, x1: Math.max(u.t1Utc * 1000, u.t0Utc * 1000 + 500), y0: 0, y1: 1,
         fillcolor: 'rgba(60,60,60,0.14)', line: { width: 0 }, layer: 'below' });
@@ -284,13 +294,26 @@
     document.getElementById('card-unreliable').setAttribute('visibility', unreliable ? 'visible' : 'hidden');
   }
 
+  /** What the aircraft was doing at drawn point i, in a few words, from bank and fore-and-aft acceleration. */
+  function doing(i) {
+    var b = S.bankDeg[i], a = S.accelLongKtS[i], parts = [];
+    if (b !== null && Math.abs(b) >= 5) parts.push('Turning ' + (b > 0 ? 'right' : 'left') + ' at ' + Math.round(Math.abs(b)) + '° of bank');
+    else parts.push('Wings level');
+    if (a !== null && Math.abs(a) >= 0.5) parts.push((a > 0 ? 'gaining' : 'losing') + ' speed at ' + Math.abs(a).toFixed(1) + ' kt/s');
+    var text = parts.join(', ') + '.';
+    if (S.unreliable[i] === 1) text += ' The reading is not to be trusted here.';
+    return text;
+  }
+
   function showReadout(i) {
     setText('ro-time', utc(tMs[i]));
     setText('ro-elapsed', elapsed(S.tS[i]));
     setText('ro-compass', hdg(S.compassDeg[i]));
     setText('ro-mag', hdg(S.headingMagDeg[i]));
     var e = S.errorDeg[i];
-    setText('ro-error', e === null ? '–' : signed(e, 1) + (Math.abs(e) < 0.5 ? '' : e > 0 ? ' (reads high)' : ' (reads low)'));
+    setText('ro-error', e === null ? '–' : signed(e, 0));
+    setText('ro-error-words', e === null ? '' : Math.abs(e) < 0.5 ? 'card agrees' : e > 0 ? 'card reads high' : 'card reads low');
+    setText('ro-doing', doing(i));
     setText('ro-static', hdg(S.compassStaticDeg[i]));
     setText('ro-bank', bankText(S.bankDeg[i]));
     setText('ro-gs', numText(S.gsKt[i], 0, ' kt'));

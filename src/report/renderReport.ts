@@ -29,6 +29,9 @@ export interface ReportPageData {
   errorScaleDeg: number;
   /** showLabel: one of the 12 largest peaks (the rest are ringed without text, to keep the charts legible). */
   divergences: { label: string; startUtc: number; endUtc: number; peakUtc: number; showLabel: boolean }[];
+  /** Turns and speed changes, labelled on the bank and acceleration panels so the tables can be matched up. */
+  turns: { label: string; startUtc: number; endUtc: number }[];
+  episodes: { label: string; startUtc: number; endUtc: number }[];
   excursions: { label: string; believedEastNm: (number | null)[]; believedNorthNm: (number | null)[] }[];
   unreliableSpans: ReportModel['unreliableSpans'];
 }
@@ -103,6 +106,8 @@ export function renderReport(model: ReportModel, assets: ReportAssets): string {
       peakUtc: d.peakUtc,
       showLabel: labelled.has(d),
     })),
+    turns: model.turns.map((t) => ({ label: t.label, startUtc: t.startUtc, endUtc: t.endUtc })),
+    episodes: model.episodes.map((e) => ({ label: e.label, startUtc: e.startUtc, endUtc: e.endUtc })),
     excursions: model.excursions.map((x) => ({ label: x.label, believedEastNm: x.believedEastNm, believedNorthNm: x.believedNorthNm })),
     unreliableSpans: model.unreliableSpans,
   };

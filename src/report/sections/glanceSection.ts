@@ -1,5 +1,6 @@
 // Section 1, "The flight in brief": when, where, with what, the wind and field used, the worst errors.
-import type { ReportModel } from '../reportModelTypes.js';
+import { angleDiffDeg, circularMeanDeg } from '../../geo/angles.js';
+import type { ReportModel, ReportWind } from '../reportModelTypes.js';
 import { escapeHtml } from '../escapeHtml.js';
 import { fmtDuration, fmtHeading, fmtLatLon, fmtNumber, fmtSignedDeg, fmtUtcDateTime, fmtUtcTime } from '../pilotFormat.js';
 import { fact, headRow, jumpRow, td } from './htmlParts.js';
@@ -20,6 +21,37 @@ export function fmtBank(deg: number): string {
 
 function range(lo: string, hi: string): string {
   return lo === hi ? lo : `${lo} to ${hi}`;
+}
+
+function windLine(w: ReportWind): string {
+  const sigma = Number.isFinite(w.sigmaKt) ? ` ± ${fmtNumber(w.sigmaKt, 1)} kt` : '';
+  return `${fmtHeading(w.fromDegTrue)} true / ${fmtNumber(w.speedKt, 0)} kt${sigma}`;
+}
+function windWhen(w: ReportWind): string {
+  return Number.isFinite(w.t0Utc) && Number.isFinite(w.t1Utc) ? `, ${fmtUtcTime(w.t0Utc)} to ${fmtUtcTime(w.t1Utc)}` : '';
+}
+
+/**
+ * The wind used: each estimate when there are one or two; otherwise one summary line (circular mean
+ * direction, mean speed, the spread) with every estimate listed in a closed <details>.
+ */
+function windBlock(winds: ReportWind[]): string {
+  if (winds.length === 0) {
+    return '<p class="empty">No wind estimate was made: headings are taken equal to the ground track, which is wrong by the drift angle.</p>';
+  }
+  const item = (w: ReportWind) => `<li>${escapeHtml(windLine(w))} <span class="quiet">${escapeHtml(`(${w.sourceText}${windWhen(w)})`)}</span></li>`;
+  if (winds.length <= 2) return `<ul class="winds">${winds.map(item).join('')}</ul>`;
+  const from = circularMeanDeg(winds.map((w) => w.fromDegTrue));
+  const speeds = winds.map((w) => w.speedKt).filter((v) => Number.isFinite(v));
+  const meanKt = speeds.reduce((a, b) => a + b, 0) / Math.max(1, speeds.length);
+  const spreadDeg = Math.max(...winds.map((w) => Math.abs(angleDiffDeg(w.fromDegTrue, from))));
+  const sources = [...new Set(winds.map((w) => w.sourceText))].join('; ');
+  const summary = `${fmtHeading(from)} true / ${fmtNumber(meanKt, 0)} kt on average`;
+  const lo = fmtNumber(Math.min(...speeds), 0);
+  const hi = fmtNumber(Math.max(...speeds), 0);
+  const detail = `${winds.length} estimates (${sources}), directions within ±${fmtNumber(spreadDeg, 0, '°')}, ${lo === hi ? `all ${lo} kt` : `speeds ${lo} to ${hi} kt`}`;
+  return `<p class="wind-summary"><strong>${escapeHtml(summary)}</strong><br><span class="quiet">${escapeHtml(detail)}</span></p>
+<details class="winds"><summary>Each estimate</summary><ul class="winds">${winds.map(item).join('')}</ul></details>`;
 }
 
 /** HTML of the glance section's body (facts, wind, field, headline errors). */
@@ -44,16 +76,7 @@ export function glanceSection(m: ReportModel): string {
     ...who,
   ];
 
-  const winds = g.winds.length === 0
-    ? `<p class="empty">No wind estimate was made: headings are taken equal to the ground track, which is wrong by the drift angle.</p>`
-    : `<ul class="winds">${g.winds
-        .slice(0, 8)
-        .map((w) => {
-          const when = Number.isFinite(w.t0Utc) && Number.isFinite(w.t1Utc) ? `, ${fmtUtcTime(w.t0Utc)} to ${fmtUtcTime(w.t1Utc)}` : '';
-          const sigma = Number.isFinite(w.sigmaKt) ? ` ± ${fmtNumber(w.sigmaKt, 1)} kt` : '';
-          return `<li>${escapeHtml(`${fmtHeading(w.fromDegTrue)} true / ${fmtNumber(w.speedKt, 0)} kt${sigma}`)} <span class="quiet">${escapeHtml(`(${w.sourceText}${when})`)}</span></li>`;
-        })
-        .join('')}${g.winds.length > 8 ? `<li class="quiet">${escapeHtml(`and ${g.winds.length - 8} more estimates`)}</li>` : ''}</ul>`;
+  const winds = windBlock(g.winds);
 
   const zones: string[] = [];
   if (g.cautionZoneSamples > 0) zones.push(`${g.cautionZoneSamples} samples in the WMM caution zone (weak horizontal field)`);
@@ -66,7 +89,7 @@ export function glanceSection(m: ReportModel): string {
   ];
 
   const headline = [
-    fact('Largest compass error', fmtNumber(g.maxAbsErrorDeg, 0, '°')),
+    fact('Largest compass error', `${fmtNumber(g.maxAbsErrorDeg, 0, '°')}${g.biggestErrors.length > 0 ? ` at ${fmtUtcTime(g.biggestErrors[0].tUtc)}` : ''}`),
     fact('Typical (RMS) error', fmtNumber(g.rmsErrorDeg, 1, '°')),
     fact('Readings flagged unreliable', `${fmtNumber(100 * g.unreliableShare, 1)} % of the flight`),
   ];
@@ -102,9 +125,9 @@ export function glanceSection(m: ReportModel): string {
         ])}</thead><tbody>${peakRows.join('')}</tbody></table></div>`;
 
   return `<div class="glance-grid">
-<div class="panel"><h3>When, where, who</h3><dl class="facts">${when.join('')}</dl></div>
-<div class="panel"><h3>Wind used</h3>${winds}<h3>Magnetic field along the path</h3><dl class="facts">${field.join('')}</dl></div>
+<div class="panel glance-when"><h3>When, where, who</h3><dl class="facts">${when.join('')}</dl></div>
+<div class="panel glance-field"><h3>Wind used</h3>${winds}<h3>Magnetic field along the path</h3><dl class="facts">${field.join('')}</dl></div>
 <div class="panel headline"><h3>How far the compass strayed</h3><dl class="facts">${headline.join('')}</dl></div>
-</div>
-${peaks}`;
+<div class="glance-peaks">${peaks}</div>
+</div>`;
 }
