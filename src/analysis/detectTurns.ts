@@ -58,7 +58,9 @@ function crossingT(t: Float64Array, ca: number, cb: number, a: number, b: number
  * Method (ours, hysteresis with hold times): a turn is confirmed once rate·dir ≥ enterRateDps has been held for
  * enterHoldS; it begins at the last sample before that run whose rate·dir was below exitRateDps (so the whole
  * roll-in is inside) and ends at the first sample of a run of rate·dir < exitRateDps lasting exitHoldS (a
- * reversal ends the turn too, since rate·dir goes negative). Samples with a NaN heading or rate, TAS below
+ * reversal ends the turn too, since rate·dir goes negative). Both ends are then pushed outward while rate·dir
+ * stays positive and keeps falling (the tails of the roll-in and roll-out below the exit rate), which stops at
+ * the first noise wiggle, so noise cannot drag a turn along a straight leg. Samples with a NaN heading or rate, TAS below
  * minAirspeedMs (ground, taxi) or a new segment end a turn and never start one. Turns whose heading change is
  * below minHeadingChangeDeg are dropped.
  * Phases: steady rate = median rate·dir of the samples ≥ enterRateDps; the roll-in ends where rate·dir first
@@ -119,6 +121,15 @@ export function detectTurns(state: FlightState, opts: TurnDetectionOptions = DEF
     if (end < 0) {
       end = below >= 0 ? below : n - 1;
       complete = below >= 0;
+    }
+    // Take in the tails below the exit rate while the rate keeps falling toward zero (stops at the first noise
+    // wiggle, a reversal, a gap, or the previous turn's end).
+    const inward = (k: number, from: number): boolean => seg[k] === seg[from] && usable(k) && dir * rate[k] <= dir * rate[from];
+    while (s - 1 >= Math.max(0, prevEnd) && inward(s - 1, s) && dir * rate[s - 1] > 0) s--;
+    if (s - 1 >= Math.max(0, prevEnd) && inward(s - 1, s) && dir * rate[s - 1] <= 0 && dir * rate[s] > 0) s--; // the sample where it reached zero
+    if (complete) {
+      while (end + 1 < n && inward(end + 1, end) && dir * rate[end + 1] > 0) end++;
+      if (end + 1 < n && inward(end + 1, end) && dir * rate[end + 1] <= 0 && dir * rate[end] > 0) end++;
     }
     const span = measureTurn(state, s, end, dir, enter, complete);
     if (span && span.headingChangeDeg >= minHeadingChangeDeg) turns.push(span);
