@@ -25,3 +25,17 @@ export function segmentGaps(tUtc: Float64Array, segment: ArrayLike<number>): Rep
   for (let i = 1; i < tUtc.length; i++) if (segment[i] !== segment[i - 1]) gaps.push({ t0Utc: tUtc[i - 1], t1Utc: tUtc[i] });
   return gaps;
 }
+
+/**
+ * Joins spans separated by at most maxGapS seconds (spans sorted by time, non-overlapping). With
+ * maxGapS = flight duration / K the result has at most K + 1 spans, which bounds the shapes a chart draws.
+ */
+export function mergeCloseSpans(spans: ReportSpan[], maxGapS: number): ReportSpan[] {
+  const out: ReportSpan[] = [];
+  for (const sp of spans) {
+    const last = out[out.length - 1];
+    if (last !== undefined && sp.t0Utc - last.t1Utc <= maxGapS) last.t1Utc = Math.max(last.t1Utc, sp.t1Utc);
+    else out.push({ t0Utc: sp.t0Utc, t1Utc: sp.t1Utc });
+  }
+  return out;
+}

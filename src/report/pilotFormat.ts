@@ -11,6 +11,12 @@ export function fmtNumber(x: number, decimals: number, unit = ''): string {
   return `${neg ? MINUS : ''}${s}${unit}`;
 }
 
+/** A whole count with comma grouping: 108000 → "108,000". */
+export function fmtCount(n: number): string {
+  if (!Number.isFinite(n)) return MISSING;
+  return String(Math.round(n)).replace(/\B(?=(\d{3})+(?!\d))/g, ',');
+}
+
 /** A direction as pilots write it: three digits, whole degrees, [0, 360): 4.6 → "005°", 359.7 → "000°". */
 export function fmtHeading(deg: number): string {
   if (!Number.isFinite(deg)) return MISSING;

@@ -1,7 +1,7 @@
 // renderReport: ReportModel + template assets → one self-contained, offline HTML page (a string).
 import { InputError } from '../errors.js';
 import { escapeHtml, inlineScriptSource, jsonForScriptBlock } from './escapeHtml.js';
-import { fmtDuration, fmtUtcDateTime } from './pilotFormat.js';
+import { fmtCount, fmtDuration, fmtUtcDateTime } from './pilotFormat.js';
 import type { ReportModel } from './reportModelTypes.js';
 import { cspScriptHash } from './sha256.js';
 import { eventTablesSection } from './sections/eventTablesSection.js';
@@ -123,8 +123,8 @@ export function renderReport(model: ReportModel, assets: ReportAssets): string {
   const d = model.downsample;
   const drawnNote =
     d.drawn === d.samples
-      ? `All ${d.samples} samples are drawn.`
-      : `Drawn: ${d.drawn} of ${d.samples} samples (${d.method}). The samples CSV holds every sample.`;
+      ? `Every sample is drawn (${fmtCount(d.samples)}).`
+      : `Drawn: ${fmtCount(d.drawn)} of ${fmtCount(d.samples)} samples (${d.method}). The samples CSV holds every sample.`;
   return fillTemplate(assets.html, {
     CSP: escapeHtml(reportCsp([cspScriptHash(plotlyJs), cspScriptHash(pageJs)])),
     TITLE: escapeHtml(model.title),

@@ -7,9 +7,10 @@ import { ZONE_BLACKOUT, ZONE_CAUTION } from '../magnetic/fieldAlongPath.js';
 import type { WindSource } from '../state/flightState.js';
 import { compactAtRows, compactDirectionAtRows } from './compactColumn.js';
 import { downsampleForDrawing } from './downsampleForDrawing.js';
-import { flagSpans, segmentGaps } from './flagSpans.js';
+import { flagSpans, mergeCloseSpans, segmentGaps } from './flagSpans.js';
 import { largestErrorPeaks } from './largestErrorPeaks.js';
 import { localPlanNm } from './localPlanNm.js';
+import { fmtCount } from './pilotFormat.js';
 import type {
   ReportDivergenceRow,
   ReportErrorPeak,
@@ -119,9 +120,10 @@ export function buildReportModel(a: FlightAnalysis, opts: ReportModelOptions = {
       method:
         rows.length === n
           ? 'every sample is drawn'
-          : `min/max thinning: in each of ${Math.floor((maxPoints - new Set(forced).size) / 2)} equal runs of samples the lowest and highest compass error are drawn (so no error peak is lost), plus every segment end and event time`,
+          : `min/max thinning: in each of ${fmtCount(Math.floor((maxPoints - new Set(forced).size) / 2))} equal runs of samples the lowest and highest compass error are drawn (so no error peak is lost), plus every segment end and event time`,
     },
-    unreliableSpans: flagSpans(s.t, c.unreliable, s.segment),
+    // Runs closer than 5 s (or than 1/500 of the flight) are joined: at most ~500 shaded bands.
+    unreliableSpans: mergeCloseSpans(flagSpans(s.t, c.unreliable, s.segment), Math.max(5, glance.durationS / 500)),
     turns: an.turns.map((t, k) => ({
       label: `T${k + 1}`,
       startUtc: t.startT,

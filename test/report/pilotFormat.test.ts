@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fmtDuration, fmtHeading, fmtLatLon, fmtNumber, fmtSignedDeg, fmtUtcDateTime, fmtUtcTime } from '../../src/report/pilotFormat.js';
+import { fmtCount, fmtDuration, fmtHeading, fmtLatLon, fmtNumber, fmtSignedDeg, fmtUtcDateTime, fmtUtcTime } from '../../src/report/pilotFormat.js';
 import { fmtBank, fmtVariation } from '../../src/report/sections/glanceSection.js';
 
 describe('pilot formats', () => {
@@ -26,6 +26,12 @@ describe('pilot formats', () => {
     expect(fmtUtcDateTime(t)).toBe('2026-05-04 10:11:12 UTC');
     expect(fmtDuration(3723)).toBe('1:02:03');
     expect(fmtDuration(59.6)).toBe('1:00');
+  });
+
+  it('groups counts by thousands', () => {
+    expect(fmtCount(108000)).toBe('108,000');
+    expect(fmtCount(999)).toBe('999');
+    expect(fmtCount(1234567)).toBe('1,234,567');
   });
 
   // 52.5° = 52°30′; 0.75° = 45′ (60 minutes per degree).

@@ -140,6 +140,21 @@ describe('renderReport: content and order', () => {
     expect(bare).not.toContain('id="turns-table"');
   });
 
+  it('lists at most 200 warnings on the page and says how many more the summary JSON holds', () => {
+    const a = syntheticFlight({ durationS: 60, hz: 5 });
+    a.warnings = Array.from({ length: 250 }, (_, k) => ({ code: 'odd-record', message: `record ${k} looked odd` }));
+    const page = renderReport(buildReportModel(a, FIXED), assets);
+    expect(page.match(/<code>odd-record<\/code>/g)).toHaveLength(200);
+    expect(page).toContain('and 50 more warnings, listed in the summary JSON.');
+  });
+
+  it('renders a flight of a single sample without throwing', () => {
+    const one = syntheticFlight({ durationS: 0.2, hz: 5 });
+    expect(one.state.n).toBe(1);
+    const page = renderReport(buildReportModel(one, FIXED), assets);
+    expect(page).toContain('Every sample is drawn (1).');
+  });
+
   it('is a pure function: the same model and assets give the same page', () => {
     expect(renderReport(hostileModel, assets)).toBe(html);
   });

@@ -1,7 +1,7 @@
 // Section 7, "Method, cautions and terms": how the numbers were made, what they are not for, a glossary.
 import type { ReportModel } from '../reportModelTypes.js';
 import { escapeHtml } from '../escapeHtml.js';
-import { fmtNumber } from '../pilotFormat.js';
+import { fmtCount, fmtNumber } from '../pilotFormat.js';
 
 /** The cautions, word for word the same wherever the tool prints them. */
 export const CAUTION_TEXT =
@@ -30,7 +30,7 @@ export function methodNotesSection(m: ReportModel): string {
     `The Earth’s field along the path comes from ${g.fieldModel} for epoch ${fmtNumber(g.decimalYear, 2)}. Local magnetic anomalies and the aircraft’s own magnetism beyond a given deviation card are not known to the model.`,
     'The card is modelled as a pendulous magnet in liquid: its “down” follows the apparent gravity, its magnet seeks the part of the field in the card’s plane, and the card swings, lags and is dragged by the liquid with the time constants of the compass profile used.',
     'Compass error = compass reading − magnetic heading, in degrees. Positive: the card shows a larger number than the aircraft’s magnetic heading. Samples where the card is on its tilt stop or has lost its directive force are flagged unreliable and shaded grey on the error chart.',
-    `Charts: ${d.drawn === d.samples ? `all ${d.samples} samples are drawn.` : `${d.drawn} of ${d.samples} samples are drawn (${d.method}). The compass card and the slider step through the drawn points. The samples CSV has every sample.`}`,
+    `Charts: ${d.drawn === d.samples ? `every sample is drawn (${fmtCount(d.samples)}).` : `${fmtCount(d.drawn)} of ${fmtCount(d.samples)} samples are drawn (${d.method}). The compass card and the slider step through the drawn points. The samples CSV has every sample.`}`,
     'All times are UTC. Headings are in degrees, speeds in knots, altitudes in feet, distances in nautical miles.',
   ];
   return `<div class="caution" role="note"><strong>Caution.</strong> ${escapeHtml(CAUTION_TEXT)}</div>
