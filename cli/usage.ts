@@ -26,7 +26,12 @@ Options:
   --out FILE          HTML debrief (default: <log name>.debrief.html in the current folder)
   --samples FILE      one row per sample: positions, headings, compass reading and its error (CSV)
   --json FILE         summary: wind, field, turns, episodes, divergences, warnings (JSON)
-  --wind W            DDD/SS (from, degrees true / knots, e.g. 250/20), calm, or auto (default: auto)
+  --wind W            DDD/SS (from, degrees true / knots, e.g. 250/20), calm, auto (default: from the
+                      log's turns and air data), or a wind table file (.csv: alt_ft, alt_m or time_utc,
+                      and wind as DDD/SS)
+  --plan FILE         intended turns (CSV: target_mag_deg, optional not_before_utc) to grade against
+  --excursion S/E     a span flown on the compass, UTC (e.g. 10:12:00/10:20:30), for the excursion analysis
+  --tolerance DEG     roll-out tolerance in degrees (default 10)
   --deviation FILE    compass-swing record (CSV: heading_mag_deg, compass_deg) to apply as deviation
   --compass FILE      compass profile (JSON) replacing the default card parameters
   --format F          force the log format (gpx, csv) instead of telling it from the content

@@ -6,7 +6,7 @@ import type { WindOption } from './state/windOption.js';
 import { computeFieldAlongPath } from './magnetic/fieldAlongPath.js';
 import { simulateCompass } from './compass/simulateCompass.js';
 import { DEFAULT_COMPASS_PROFILE, type CompassProfile } from './compass/compassProfile.js';
-import type { Analysis } from './analysis/analysisTypes.js';
+import { analyseDebrief, type DebriefOptions } from './analysis/analyseDebrief.js';
 import type { FlightAnalysis } from './flightAnalysis.js';
 
 export interface AnalyseOptions {
@@ -18,6 +18,13 @@ export interface AnalyseOptions {
   compass?: CompassProfile;
   /** Deviation card δ(compass heading) [deg], easterly +, compass + δ = magnetic. Default none. */
   deviation?: (compassDeg: number) => number;
+  /** Debrief analyses: plan text, excursion span, tolerances (defaults and origins in src/analysis/debriefOptions.ts). */
+  debrief?: DebriefOptions;
+  /**
+   * A span flown on the compass, for the excursion analysis: UTC seconds, or (timeOfDay) seconds after
+   * midnight UTC of the log's first day, a time before the log's start taken on the next day.
+   */
+  excursion?: { startT: number; endT: number; timeOfDay?: boolean };
   /** Called as each stage starts, for progress. */
   onStage?: (name: string) => void;
 }
@@ -28,6 +35,17 @@ function timed<T>(timings: Record<string, number>, name: string, onStage: ((n: s
   const r = f();
   timings[name] = performance.now() - t0;
   return r;
+}
+
+/** Turns a time-of-day excursion into UTC seconds on the log's first day (next day if before the start). */
+function resolveExcursion(x: NonNullable<AnalyseOptions['excursion']>, t0: number): { startT: number; endT: number } {
+  if (!x.timeOfDay) return { startT: x.startT, endT: x.endT };
+  const day0 = Math.floor(t0 / 86400) * 86400;
+  const at = (s: number) => (day0 + s < t0 - 60 ? day0 + s + 86400 : day0 + s);
+  const startT = at(x.startT);
+  let endT = at(x.endT);
+  if (endT <= startT) endT += 86400;
+  return { startT, endT };
 }
 
 /**
@@ -55,13 +73,19 @@ export function analyseFlight(log: FlightLog, options: AnalyseOptions = {}, heal
   const compass = timed(timingsMs, 'simulating the compass', onStage, () =>
     simulateCompass(state, field, options.compass ?? DEFAULT_COMPASS_PROFILE, options.deviation),
   );
-  const analysis: Analysis = { turns: [], episodes: [], divergences: [], excursions: [] };
+  const debriefOptions: DebriefOptions = { ...(cleaned.route && !options.debrief?.route ? { route: cleaned.route } : {}), ...options.debrief };
+  if (options.excursion) debriefOptions.excursion = resolveExcursion(options.excursion, state.n > 0 ? state.t[0] : NaN);
+  const { analysis, warnings: debriefWarnings } = timed(timingsMs, 'debrief analyses', onStage, () =>
+    analyseDebrief(state, field, compass, debriefOptions),
+  );
   const health2: LogHealth = { ...h };
   for (const w of state.warnings) {
-    if (w.code === 'position-spikes' && w.count !== undefined) health2.positionSpikes += w.count;
-    if (w.code === 'gaps' && w.count !== undefined) health2.gaps += w.count;
+    if (w.code === 'state-position-spike' && w.count !== undefined) health2.positionSpikes += w.count;
+    if (w.code === 'state-gap' && w.count !== undefined) health2.gaps += w.count;
+    if (w.code === 'state-time-backwards' && w.count !== undefined) health2.outOfOrder += w.count;
+    if (w.code === 'state-no-position' && w.count !== undefined) health2.invalidValues += w.count;
   }
-  const compassWarnings: LogWarning[] = (compass as { warnings?: LogWarning[] }).warnings ?? [];
-  const warnings: LogWarning[] = [...cleaned.source.warnings, ...state.warnings, ...fieldWarnings, ...compassWarnings];
+  const compassWarnings: LogWarning[] = compass.warnings ?? [];
+  const warnings: LogWarning[] = [...cleaned.source.warnings, ...state.warnings, ...fieldWarnings, ...compassWarnings, ...debriefWarnings];
   return { log: cleaned, health: health2, state, field, compass, analysis, warnings, timingsMs };
 }
