@@ -1,17 +1,12 @@
 // `compass-debrief report <log>`: read, analyse, write the debrief (HTML), samples CSV and summary JSON.
 import path from 'node:path';
 import { promises as fsp } from 'node:fs';
-import { analyseFlight, type AnalyseOptions } from '../src/analyseFlight.js';
-import { readLogFile } from '../src/import/readLog.js';
+import { InputError, ParseError } from '../src/errors.js';
+import type { AnalyseOptions } from '../src/analyseFlight.js';
 import type { LogFormat } from '../src/log/flightLog.js';
-import { InputError } from '../src/errors.js';
-import { samplesCsv } from '../src/report/samplesCsv.js';
-import { summaryJson } from '../src/report/summaryJson.js';
-import { writeOutputsAtomically, type PendingOutput } from '../src/report/writeAtomic.js';
-import { buildReportModel } from '../src/report/reportModel.js';
-import { renderReport } from '../src/report/renderReport.js';
-import { loadReportAssets } from '../src/report/loadReportAssets.js';
-import { parseCompassProfile } from '../src/compass/compassProfile.js';
+import { writeOutputsAtomically } from '../src/report/writeAtomic.js';
+import { debriefOneFlight } from '../src/batch/debriefOneFlight.js';
+import { readCompassProfileFile } from '../src/batch/readCompassProfileFile.js';
 import { KT_MS } from '../src/constants.js';
 import type { CliIo } from './cliIo.js';
 import { parseCommandLine } from './parseCommandLine.js';
@@ -20,23 +15,40 @@ import { USAGE } from './usage.js';
 import { UsageError } from './usageError.js';
 import { readDeviationFile } from './readDeviationFile.js';
 import { progressReporter } from './progress.js';
+import { readWindTable } from './readWindTable.js';
 
-const FORMATS: LogFormat[] = ['gpx', 'csv', 'igc', 'nmea', 'fit', 'kml'];
-
-/** Reads a small JSON side file (compass profile) and names the file in any error. */
-async function readJsonFile(file: string): Promise<unknown> {
-  let text: string;
+/** Reads a small text side file (plan); errors name the file. */
+async function readTextFile(file: string, what: string): Promise<string> {
   try {
-    text = await fsp.readFile(file, 'utf8');
+    return await fsp.readFile(file, 'utf8');
   } catch (err) {
-    throw new InputError(file, `cannot read the file: ${(err as NodeJS.ErrnoException).code ?? (err as Error).message}`, { hint: 'check the path' });
-  }
-  try {
-    return JSON.parse(text);
-  } catch (err) {
-    throw new InputError(file, `not valid JSON: ${(err as Error).message}`, { hint: 'see DEVELOPERS.md for the compass profile fields' });
+    throw new InputError(file, `cannot read the ${what} file: ${(err as NodeJS.ErrnoException).code ?? (err as Error).message}`, { hint: 'check the path' });
   }
 }
+
+/**
+ * --excursion START/END: UTC times, either full ISO 8601 (with Z or an offset) or HH:MM[:SS] on the log's
+ * own UTC day (resolved by analyseFlight; a time before the log's start is taken on the next day).
+ */
+export function parseExcursion(text: string): NonNullable<AnalyseOptions['excursion']> {
+  const parts = text.split('/');
+  if (parts.length !== 2) throw new UsageError('report', `--excursion ${text}: expected START/END, UTC times (e.g. 10:12:00/10:20:30 or full ISO 8601)`);
+  const one = (s: string): { t: number; timeOfDay: boolean } => {
+    const v = s.trim();
+    const hm = /^(\d{1,2}):(\d{2})(?::(\d{2}(?:\.\d+)?))?Z?$/i.exec(v);
+    if (hm && Number(hm[1]) < 24) return { t: Number(hm[1]) * 3600 + Number(hm[2]) * 60 + Number(hm[3] ?? 0), timeOfDay: true };
+    const ms = Date.parse(v);
+    if (Number.isFinite(ms) && /(Z|[+-]\d\d:?\d\d)$/i.test(v)) return { t: ms / 1000, timeOfDay: false };
+    throw new UsageError('report', `--excursion ${text}: '${v}' is not a UTC time (HH:MM:SS or ISO 8601 with Z)`);
+  };
+  const a = one(parts[0]);
+  const b = one(parts[1]);
+  if (a.timeOfDay !== b.timeOfDay) throw new UsageError('report', `--excursion ${text}: give both times the same way (both HH:MM:SS or both ISO 8601)`);
+  if (!a.timeOfDay && !(b.t > a.t)) throw new UsageError('report', `--excursion ${text}: the end must come after the start`);
+  return { startT: a.t, endT: b.t, timeOfDay: a.timeOfDay };
+}
+
+const FORMATS: LogFormat[] = ['gpx', 'csv', 'igc', 'nmea', 'fit', 'kml'];
 
 export async function reportCommand(args: string[], io: CliIo): Promise<number> {
   const { values, positionals } = parseCommandLine('report', args, {
@@ -49,6 +61,9 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
     format: { type: 'string' },
     aircraft: { type: 'string' },
     pilot: { type: 'string' },
+    plan: { type: 'string' },
+    excursion: { type: 'string' },
+    tolerance: { type: 'string' },
   });
   if (values.help) {
     io.stdout(USAGE.report);
@@ -57,8 +72,13 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
   if (positionals.length === 0) throw new UsageError('report', 'no log file given');
   if (positionals.length > 1) throw new UsageError('report', `one log at a time (got ${positionals.length}: ${positionals.join(' ')})`);
   const logPath = positionals[0];
-  const wind = parseWind(values.wind ?? 'auto');
-  if (wind.kind === 'file') throw new UsageError('report', `--wind ${wind.path}: wind tables are not supported yet; give DDD/SS, calm or auto`);
+  const windArg = parseWind(values.wind ?? 'auto');
+  let toleranceDeg: number | undefined;
+  if (values.tolerance !== undefined) {
+    toleranceDeg = Number(values.tolerance);
+    if (!(Number.isFinite(toleranceDeg) && toleranceDeg > 0 && toleranceDeg <= 90)) throw new UsageError('report', `--tolerance ${values.tolerance}: must be a number of degrees above 0 and up to 90`);
+  }
+  const excursion = values.excursion !== undefined ? parseExcursion(values.excursion) : undefined;
   let format: LogFormat | undefined;
   if (values.format !== undefined) {
     if (!FORMATS.includes(values.format as LogFormat)) throw new UsageError('report', `--format ${values.format}: expected one of ${FORMATS.join(', ')}`);
@@ -67,30 +87,27 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
   const outHtml = values.out ?? path.join(io.cwd, `${path.basename(logPath).replace(/\.[^.]+$/, '')}.debrief.html`);
   const progress = progressReporter(io, Boolean(values.quiet));
 
-  progress.stage('reading the log');
-  const { log, health } = await readLogFile(logPath, { format });
-  if (values.aircraft !== undefined) log.source.meta.aircraft = values.aircraft;
-  if (values.pilot !== undefined) log.source.meta.pilot = values.pilot;
-
-  const options: AnalyseOptions = { wind, onStage: (name) => progress.stage(name) };
-  if (values.compass !== undefined) {
-    const json = await readJsonFile(values.compass);
-    try {
-      options.compass = parseCompassProfile(json);
-    } catch (err) {
-      throw new InputError(values.compass, (err as Error).message, { hint: 'see DEVELOPERS.md for the compass profile fields and ranges' });
-    }
-  }
+  // Side files first (they are small; a bad one fails before the log is read), then the shared steps.
+  const wind = windArg.kind === 'file' ? await readWindTable(windArg.path) : windArg;
+  const options: Omit<AnalyseOptions, 'onStage'> = { wind, excursion, debrief: {} };
+  if (toleranceDeg !== undefined) options.debrief!.toleranceDeg = toleranceDeg;
+  if (values.plan !== undefined) options.debrief!.planCsvText = await readTextFile(values.plan, 'plan');
+  if (values.compass !== undefined) options.compass = await readCompassProfileFile(values.compass);
   if (values.deviation !== undefined) options.deviation = await readDeviationFile(values.deviation);
 
-  const analysis = analyseFlight(log, options, health);
-  progress.stage('writing the debrief');
-  const assets = await loadReportAssets();
-  const html = renderReport(buildReportModel(analysis, { generatedAt: new Date() }), assets);
-  const outputs: PendingOutput[] = [{ path: outHtml, content: html }];
-  if (values.samples !== undefined) outputs.push({ path: values.samples, content: samplesCsv(analysis) });
-  if (values.json !== undefined) outputs.push({ path: values.json, content: summaryJson(analysis) });
-  const inputs = [logPath, values.deviation, values.compass].filter((p): p is string => p !== undefined);
+  let outcome;
+  try {
+    outcome = await debriefOneFlight(
+      { logPath, format, aircraft: values.aircraft, pilot: values.pilot, htmlPath: outHtml, samplesPath: values.samples, jsonPath: values.json },
+      { analyse: options, onStage: (name) => progress.stage(name) },
+    );
+  } catch (err) {
+    // The plan is parsed inside the analysis: name the plan file and its line.
+    if (err instanceof ParseError && values.plan !== undefined) throw new InputError(values.plan, err.message, { line: err.line, hint: err.hint });
+    throw err;
+  }
+  const { analysis, outputs } = outcome;
+  const inputs = [logPath, values.deviation, values.compass, values.plan, windArg.kind === 'file' ? windArg.path : undefined].filter((p): p is string => p !== undefined);
   await writeOutputsAtomically(outputs, inputs);
   progress.done();
 
