@@ -1,7 +1,7 @@
 // One entry point from a file's bytes to a FlightLog: detect the format, run its reader. Pure (no fs).
 import { OptionError, ParseError } from '../errors.js';
 import type { FlightLog, LogFormat } from '../log/flightLog.js';
-import { parseCsv } from './csv.js';
+import { checkCsvOptions, parseCsv } from './csv.js';
 import { decodeText } from './decodeText.js';
 import { detectFormat } from './detectFormat.js';
 import { parseFit } from './fit.js';
@@ -36,6 +36,7 @@ export function checkReadOptions(opts: ReadOptions): void {
   if (opts.headingRef !== undefined && opts.headingRef !== 'true' && opts.headingRef !== 'magnetic') {
     throw new OptionError('headingRef', `must be true or magnetic, got "${String(opts.headingRef)}"`);
   }
+  checkCsvOptions({ date: opts.date, tzOffsetMin: opts.tzOffsetMin }); // date YYYY-MM-DD, offset within ±18 h
 }
 
 /**

@@ -121,3 +121,22 @@ describe('readLogFile: reading and cleaning', () => {
     expect(statSync(f).mtimeMs).toBe(before.m);
   });
 });
+
+describe('readLogFile: options', () => {
+  it('refuses a malformed date option with an OptionError naming it, before reading', async () => {
+    const { OptionError } = await import('../../src/errors.js');
+    await expect(readLogFile(fixture('two-tracks.gpx'), { date: '04.05.2026' })).rejects.toBeInstanceOf(OptionError);
+    await expect(readLogFile(fixture('two-tracks.gpx'), { format: 'xls' as never })).rejects.toThrow(/format/);
+  });
+
+  it('forces a format over detection when asked', async () => {
+    const e = await inputError(readLogFile(fixture('two-tracks.gpx'), { format: 'csv' }));
+    expect(e.file).toBe(fixture('two-tracks.gpx'));
+  });
+
+  it('reads IGC and NMEA files found by content, through the same cleaning', async () => {
+    const { log } = await readLogFile(fixture('midnight.igc'));
+    expect(log.source.format).toBe('igc');
+    expect(log.t.length).toBe(4);
+  });
+});
