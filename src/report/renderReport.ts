@@ -39,14 +39,15 @@ export interface ReportPageData {
 /**
  * Content-Security-Policy of the page: nothing may be fetched or sent (default-src 'none',
  * connect-src 'none'), scripts run only when their text hashes to one of `scriptHashes` (CSP Level 3
- * hash sources), styles inline, images only from data: URLs (Plotly's own image export).
+ * hash sources), styles inline, images only from data: and blob: URLs (in-page memory, used by
+ * Plotly's "download plot as PNG", never the network).
  */
 export function reportCsp(scriptHashes: string[]): string {
   return [
     "default-src 'none'",
     `script-src ${scriptHashes.join(' ')}`,
     "style-src 'unsafe-inline'",
-    'img-src data:',
+    'img-src data: blob:',
     "font-src 'none'",
     "connect-src 'none'",
     "media-src 'none'",

@@ -35,6 +35,7 @@ export async function launchFreshContext(viewport = { width: 1280, height: 900 }
     args: CHROMIUM_ARGS,
     viewport,
     offline: true,
+    acceptDownloads: true,
   });
   return {
     context,

@@ -204,6 +204,35 @@ describe.skipIf(!available)('the debrief page in headless Chromium', () => {
   });
 });
 
+describe.skipIf(!available)('Plotly’s own PNG export under the page’s CSP', () => {
+  it('downloads a chart as PNG through in-page blob:/data: URLs only, with no CSP violation', async () => {
+    const { context, close } = await launchFreshContext();
+    try {
+      const page = await context.newPage();
+      const requests: string[] = [];
+      const errors: string[] = [];
+      page.on('request', (r) => requests.push(r.url()));
+      page.on('console', (m) => {
+        if (m.type() === 'error') errors.push(m.text());
+      });
+      page.on('pageerror', (e) => errors.push(e.message));
+      mkdirSync(OUT, { recursive: true });
+      const htmlPath = join(OUT, 'report-browser-export.html');
+      writeFileSync(htmlPath, renderReport(buildReportModel(syntheticFlight({ durationS: 600, hz: 5 }), {}), loadReportAssets()));
+      await page.goto(pathToFileURL(htmlPath).href);
+      await page.waitForFunction(() => typeof (window as unknown as { __reportReady?: number }).__reportReady === 'number', undefined, { timeout: 60_000 });
+      await page.locator('#plan-plot').hover();
+      const download = page.waitForEvent('download', { timeout: 20_000 });
+      await page.locator('#plan-plot .modebar-btn[data-title^="Download"]').click();
+      expect((await download).suggestedFilename()).toMatch(/\.png$/);
+      expect(errors).toEqual([]);
+      for (const u of requests) expect(u).toMatch(/^(file:|blob:|data:)/);
+    } finally {
+      await close();
+    }
+  });
+});
+
 describe.skipIf(!available)('measureReportInBrowser', () => {
   it('returns the time until every chart is drawn for a 108,000-sample page (logged, not asserted against a limit)', async () => {
     mkdirSync(OUT, { recursive: true });

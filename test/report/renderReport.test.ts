@@ -73,7 +73,7 @@ describe('renderReport: offline and locked down', () => {
     const csp = cspOf(html);
     expect(csp.get('default-src')).toEqual(["'none'"]);
     expect(csp.get('connect-src')).toEqual(["'none'"]);
-    expect(csp.get('img-src')).toEqual(['data:']);
+    expect(csp.get('img-src')).toEqual(['data:', 'blob:']); // in-page memory only (Plotly's PNG export)
     expect(csp.get('style-src')).toEqual(["'unsafe-inline'"]);
     expect(csp.get('form-action')).toEqual(["'none'"]);
   });
