@@ -49,7 +49,7 @@ export function turnsTable(m: ReportModel): string {
         td(fmtHeading(t.cueCompassDeg), 'num'),
         td(fmtHeading(t.ruleOfThumbCueDeg), 'num'),
         td(`${fmtHeading(t.compassAtRolloutDeg)} → ${fmtHeading(t.compassSettledDeg)}`, 'num'),
-        td(timed),
+        td(timed, 'wrap'),
       ],
       t.endUtc,
       t.startUtc,

@@ -114,7 +114,7 @@ export function glanceSection(m: ReportModel): string {
   const peaks =
     peakRows.length === 0
       ? '<p class="empty">No compass error could be computed for this flight.</p>'
-      : `<div class="table-wrap"><table id="peaks-table"><caption>The biggest compass errors, at least a minute apart. Click a row to see the moment.</caption><thead>${headRow([
+      : `<p class="table-caption" id="peaks-table-caption">The biggest compass errors, at least a minute apart. Click a row to see the moment.</p><div class="table-wrap"><table id="peaks-table" aria-describedby="peaks-table-caption"><thead>${headRow([
           ['#'],
           ['Time', 'UTC'],
           ['Error', 'compass − magnetic'],

@@ -29,5 +29,5 @@ export function fact(term: string, value: string): string {
 /** A table, or the empty-state sentence when there are no rows. */
 export function tableOrEmpty(id: string, caption: string, head: string, rows: string[], empty: string): string {
   if (rows.length === 0) return `<p class="empty" id="${id}-empty">${escapeHtml(empty)}</p>`;
-  return `<div class="table-wrap"><table id="${id}"><caption>${escapeHtml(caption)}</caption><thead>${head}</thead><tbody>${rows.join('')}</tbody></table></div>`;
+  return `<p class="table-caption" id="${id}-caption">${escapeHtml(caption)}</p><div class="table-wrap"><table id="${id}" aria-describedby="${id}-caption"><thead>${head}</thead><tbody>${rows.join('')}</tbody></table></div>`;
 }
