@@ -25,7 +25,8 @@ export interface ReportAssets {
 export interface ReportPageData {
   title: string;
   imageName: string;
-  series: ReportModel['series'];
+  /** The drawn columns without `row` (the page does not need the full-resolution row numbers). */
+  series: Omit<ReportModel['series'], 'row'>;
   errorScaleDeg: number;
   /** showLabel: one of the 12 largest peaks (the rest are ringed without text, to keep the charts legible). */
   divergences: { label: string; startUtc: number; endUtc: number; peakUtc: number; showLabel: boolean }[];
@@ -95,10 +96,11 @@ export function renderReport(model: ReportModel, assets: ReportAssets): string {
   const plotlyJs = inlineScriptSource(assets.plotlyJs);
   const pageJs = inlineScriptSource(assets.js);
   const labelled = new Set([...model.divergences].sort((a, b) => Math.abs(b.peakErrorDeg) - Math.abs(a.peakErrorDeg)).slice(0, 12));
+  const { row: _rows, ...drawnSeries } = model.series;
   const pageData: ReportPageData = {
     title: model.title,
     imageName: model.meta.name !== '' ? model.meta.name : 'compass-debrief',
-    series: model.series,
+    series: drawnSeries,
     errorScaleDeg: model.errorScaleDeg,
     divergences: model.divergences.map((d) => ({
       label: d.label,

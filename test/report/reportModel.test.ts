@@ -111,6 +111,18 @@ describe('buildReportModel', () => {
     expect(m.glance.fieldModel).toBe('WMM2025');
   });
 
+  it('puts a compass leg’s believed track on the plan view’s frame, starting where the leg starts', () => {
+    const x = a.analysis.excursions[0];
+    const row = m.excursions[0];
+    expect(row.believedEastNm.length).toBeGreaterThan(10);
+    expect(row.believedEastNm.length).toBeLessThanOrEqual(401);
+    const k = s.row.indexOf(x.startIndex); // the leg's start is a forced drawn row
+    expect(k).toBeGreaterThanOrEqual(0);
+    expect(Math.abs((row.believedEastNm[0] as number) - (s.eastNm[k] as number))).toBeLessThanOrEqual(0.002);
+    expect(Math.abs((row.believedNorthNm[0] as number) - (s.northNm[k] as number))).toBeLessThanOrEqual(0.002);
+    expect(row.observedCrossTrackNm).toBeCloseTo(820 / 1852, 12); // 1 NM = 1852 m exactly
+  });
+
   it('lets the options override the log’s own title, aircraft and pilot', () => {
     const o = buildReportModel(a, { title: 'Lesson 7', aircraft: 'Fenbird 2 (training)', pilot: 'R. Adeyemi-Holm' });
     expect(o.title).toBe('Lesson 7');
