@@ -32,6 +32,10 @@ export const SAMPLES_EXTRA_COLUMNS = [
   'card_tilt_deg',
   'card_unreliable',
   'segment',
+  'drift_deg',
+  'heading_sigma_deg',
+  'wind_from_deg',
+  'wind_kt',
 ] as const;
 
 function fixed(x: number, digits: number): string {
@@ -47,6 +51,11 @@ function angle360(x: number, digits: number): string {
 
 function angle180(x: number, digits: number): string {
   return Number.isFinite(x) ? wrap180(x).toFixed(digits) : '';
+}
+
+/** Direction the wind blows from [deg true] for an air-mass velocity (windN, windE: where it blows to). */
+function windFromDeg(windN: number, windE: number): number {
+  return Math.hypot(windN, windE) > 0 ? (Math.atan2(-windE, -windN) * 180) / Math.PI : 0;
 }
 
 /**
@@ -83,6 +92,10 @@ export function samplesCsv(a: FlightAnalysis): string {
       fixed(c.tiltDeg[i], 2),
       String(c.unreliable[i]),
       String(s.segment[i]),
+      angle180(s.trackDegTrue[i] - s.headingDegTrue[i], 2),
+      fixed(s.headingSigmaDeg ? s.headingSigmaDeg[i] : NaN, 2),
+      angle360(windFromDeg(s.windN[i], s.windE[i]), 1),
+      fixed(Math.hypot(s.windN[i], s.windE[i]) / KT_MS, 1),
     ].join(',');
   }
   return out.join('\n') + '\n';

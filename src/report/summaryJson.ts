@@ -29,6 +29,33 @@ function minMax(col: Float64Array): { min: number; max: number } {
   return { min, max };
 }
 
+/** An optional number rounded, or null when absent or not finite. */
+function opt(x: number | undefined, digits: number): number | null {
+  return x === undefined ? null : round(x, digits);
+}
+
+/**
+ * The flight's representative wind: the inverse-variance weighted mean vector of the estimates (a given
+ * or calm wind is its own single estimate). Source: the estimates' common source, or 'mixed'.
+ */
+function representativeWind(winds: FlightAnalysis['state']['winds']): { fromDeg: number; speedMs: number; source: string } | undefined {
+  if (winds.length === 0) return undefined;
+  if (winds.length === 1) return { fromDeg: winds[0].fromDegTrue, speedMs: winds[0].speedMs, source: winds[0].source };
+  let wn = 0;
+  let we = 0;
+  let sw = 0;
+  for (const w of winds) {
+    const weight = Number.isFinite(w.sigmaMs) && w.sigmaMs > 0 ? 1 / (w.sigmaMs * w.sigmaMs) : 1;
+    const r = (w.fromDegTrue * Math.PI) / 180;
+    // From-direction vector: pointing where the wind comes from.
+    wn += weight * w.speedMs * Math.cos(r);
+    we += weight * w.speedMs * Math.sin(r);
+    sw += weight;
+  }
+  const sources = new Set(winds.map((w) => w.source));
+  return { fromDeg: wrap360((Math.atan2(we, wn) * 180) / Math.PI), speedMs: Math.hypot(wn, we) / sw, source: sources.size === 1 ? winds[0].source : 'mixed' };
+}
+
 /** Index of the largest |value| (NaN skipped), or −1 when there is none. */
 function argMaxAbs(col: Float64Array): number {
   let best = -1;
@@ -43,12 +70,32 @@ function argMaxAbs(col: Float64Array): number {
   return best;
 }
 
+/** Root-mean-square of the finite values, rounded to 0.1, or null. */
+function rmsOf(col: Float64Array): number | null {
+  let s2 = 0;
+  let k = 0;
+  for (let i = 0; i < col.length; i++) if (Number.isFinite(col[i])) { s2 += col[i] * col[i]; k++; }
+  return k > 0 ? round(Math.sqrt(s2 / k), 1) : null;
+}
+
+/** Drift angle (track − heading, right +) along the flight: median, largest each way. */
+function driftSummary(s: FlightAnalysis['state']): { median_deg: number | null; min_deg: number | null; max_deg: number | null } {
+  const d: number[] = [];
+  for (let i = 0; i < s.n; i++) {
+    const v = wrap180(s.trackDegTrue[i] - s.headingDegTrue[i]);
+    if (Number.isFinite(v)) d.push(v);
+  }
+  if (d.length === 0) return { median_deg: null, min_deg: null, max_deg: null };
+  d.sort((a, b) => a - b);
+  return { median_deg: round(d[d.length >> 1], 1), min_deg: round(d[0], 1), max_deg: round(d[d.length - 1], 1) };
+}
+
 /** Builds the summary object (plain JSON data) of one analysed flight. */
 export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
   const { state: s, field: f, compass: c, analysis: an } = a;
   const n = s.n;
-  const wind = s.winds.length > 0 ? s.winds : [];
-  const primary = wind[0];
+  const wind = s.winds;
+  const primary = representativeWind(wind);
   const variation = minMax(f.variationDeg);
   const dip = minMax(f.dipDeg);
   let worstZone = 0;
@@ -63,7 +110,7 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
     samples: n,
     health: { ...a.health },
     wind: {
-      from_deg: primary ? round(wrap360(primary.fromDegTrue), 1) : null,
+      from_deg: primary ? round(wrap360(primary.fromDeg), 1) : null,
       speed_kt: primary ? round(primary.speedMs / KT_MS, 1) : null,
       source: primary ? primary.source : 'calm',
       estimates: wind.map((w) => ({
@@ -89,7 +136,9 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
       dip_max_deg: round(dip.max, 2),
       zone: worstZone === ZONE_BLACKOUT ? 'blackout' : worstZone === ZONE_CAUTION ? 'caution' : 'none',
     },
+    drift: driftSummary(s),
     compass: {
+      rms_error_deg: rmsOf(c.errorDeg),
       max_abs_error_deg: iMax >= 0 ? round(Math.abs(c.errorDeg[iMax]), 1) : null,
       max_error_utc: iMax >= 0 ? utc(s.t[iMax]) : null,
       unreliable_samples: c.unreliable.reduce((k, v) => k + (v ? 1 : 0), 0),
@@ -114,7 +163,27 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
       within_tolerance: t.withinTolerance,
       cue_compass_deg: round(t.cueCompassDeg, 1),
       rule_of_thumb_cue_deg: round(t.ruleOfThumbCueDeg, 1),
-      ...(t.timed ? { timed: { duration_s: round(t.timed.durationS, 1), expected_change_deg: round(t.timed.expectedChangeDeg, 1) } } : {}),
+      tolerance_deg: opt(t.toleranceDeg, 1),
+      rollout_start_utc: t.rolloutStartT !== undefined ? utc(t.rolloutStartT) : null,
+      compass_at_rollout_start_deg: opt(t.compassAtRolloutStartDeg, 1),
+      cue_mag_deg: opt(t.cueMagDeg, 1),
+      cue_difference_deg: opt(t.cueDifferenceDeg, 1),
+      rollout_lead_deg: opt(t.rolloutLeadDeg, 1),
+      lat_deg: opt(t.latDeg, 4),
+      dip_deg: opt(t.dipDeg, 2),
+      plan_line: t.planLine !== undefined && Number.isFinite(t.planLine) ? t.planLine : null,
+      ...(t.timed
+        ? {
+            timed: {
+              duration_s: round(t.timed.durationS, 1),
+              expected_change_deg: round(t.timed.expectedChangeDeg, 1),
+              actual_change_deg: opt(t.timed.actualChangeDeg, 1),
+              difference_deg: opt(t.timed.differenceDeg, 1),
+              within_tolerance: t.timed.withinTolerance ?? null,
+              basis: t.timed.basis ?? null,
+            },
+          }
+        : {}),
     })),
     episodes: an.episodes.map((e) => ({
       start_utc: utc(e.startT),
@@ -125,6 +194,7 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
       peak_swing_deg: round(e.peakSwingDeg, 1),
       swing_direction: e.swingDirection,
       expected_swing_deg: round(e.expectedSwingDeg, 1),
+      swing_ratio: opt(e.swingRatio, 2),
     })),
     divergences: an.divergences.map((d) => ({
       start_utc: utc(d.startT),
@@ -132,6 +202,7 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
       peak_error_deg: round(d.peakErrorDeg, 1),
       peak_utc: utc(d.peakT),
       cause: d.cause,
+      duration_s: opt(d.durationS, 1),
     })),
     excursions: an.excursions.map((x) => ({
       start_utc: utc(x.startT),
@@ -141,7 +212,27 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
       compass_cross_track_m: round(x.compassCrossTrackM, 0),
       wind_cross_track_m: round(x.windCrossTrackM, 0),
       residual_cross_track_m: round(x.residualCrossTrackM, 0),
+      heading_cross_track_m: opt(x.headingCrossTrackM, 0),
+      along_track_m: opt(x.alongTrackM, 0),
+      ref_track_true_deg: opt(x.refTrackDegTrue, 1),
+      mean_compass_error_deg: opt(x.meanCompassErrorDeg, 1),
+      closes: x.closes ?? null,
       source: x.source,
+      ...(x.route
+        ? {
+            route: {
+              leg_index: x.route.legIndex,
+              leg_track_true_deg: round(x.route.legTrackDegTrue, 1),
+              start_cross_track_m: round(x.route.startCrossTrackM, 0),
+              end_cross_track_m: round(x.route.endCrossTrackM, 0),
+              change_m: round(x.route.changeM, 0),
+              compass_m: round(x.route.compassM, 0),
+              wind_m: round(x.route.windM, 0),
+              heading_m: round(x.route.headingM, 0),
+              residual_m: round(x.route.residualM, 0),
+            },
+          }
+        : {}),
     })),
     warnings: a.warnings.map((w) => ({ code: w.code, message: w.message, ...(w.lines ? { lines: w.lines } : {}), ...(w.count !== undefined ? { count: w.count } : {}) })),
   };
