@@ -17,9 +17,8 @@
 // within closureToleranceM = max(25 m, 0.5 % of the along-track distance) (team choice; the test measures it).
 // Without a route, α = the held reading + variation at the start: the track the pilot believed they flew.
 // Residual (the contract field) = observed − compass − wind, i.e. heading part + closure error.
-import { DEG, RAD } from '../constants.js';
+import { DEG, RAD, WGS84_A_M, WGS84_E2 } from '../constants.js';
 import { wrap180, wrap360 } from '../geo/angles.js';
-import { radiiOfCurvatureM } from '../geo/wgs84.js';
 import type { CompassTrace } from '../compass/compassTrace.js';
 import type { FieldAlongPath } from '../magnetic/fieldAlongPath.js';
 import type { FlightState } from '../state/flightState.js';
@@ -57,7 +56,9 @@ function integrateParts(state: FlightState, field: FieldAlongPath, compass: Comp
   for (let k = i0; k <= i1; k++) {
     const wn = Number.isFinite(windN[k]) ? windN[k] : 0;
     const we = Number.isFinite(windE[k]) ? windE[k] : 0;
-    const V = Math.hypot(velN[k] - wn, velE[k] - we);
+    const an = velN[k] - wn;
+    const ae = velE[k] - we;
+    const V = Math.sqrt(an * an + ae * ae);
     const psi = headingDegTrue[k] * DEG;
     const psiB = (compass.readingDeg[k] + field.variationDeg[k]) * DEG;
     const c = V * (Math.sin(psi - a) - Math.sin(psiB - a));
@@ -102,7 +103,9 @@ export function believedTrack(
     const k = i0 + q;
     const wn = Number.isFinite(windN[k]) ? windN[k] : 0;
     const we = Number.isFinite(windE[k]) ? windE[k] : 0;
-    const V = Math.hypot(velN[k] - wn, velE[k] - we);
+    const an = velN[k] - wn;
+    const ae = velE[k] - we;
+    const V = Math.sqrt(an * an + ae * ae);
     const psiB = (compass.readingDeg[k] + field.variationDeg[k]) * DEG;
     let vn = V * Math.cos(psiB) + wn;
     let ve = V * Math.sin(psiB) + we;
@@ -113,7 +116,11 @@ export function believedTrack(
     if (q > 0) {
       const dt = t[k] - t[k - 1];
       const h = Number.isFinite(altM[k]) ? altM[k] : 0;
-      const { meridianM, primeVerticalM } = radiiOfCurvatureM(la[q - 1]);
+      // Meridian and prime-vertical radii (NIMA TR8350.2 eq. 4-1, 4-2), inline: no object per sample.
+      const sl = Math.sin(la[q - 1] * DEG);
+      const w = Math.sqrt(1 - WGS84_E2 * sl * sl);
+      const primeVerticalM = WGS84_A_M / w;
+      const meridianM = (WGS84_A_M * (1 - WGS84_E2)) / (w * w * w);
       const mn = Number.isFinite(vn + pn) ? 0.5 * (vn + pn) : 0;
       const me = Number.isFinite(ve + pe) ? 0.5 * (ve + pe) : 0;
       la[q] = la[q - 1] + ((mn * dt) / (meridianM + h)) * RAD;
