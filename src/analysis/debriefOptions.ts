@@ -144,6 +144,7 @@ function num(name: string, v: number | undefined, dflt: number, lo: number, hi: 
 }
 
 /** Fills in the defaults and checks every option; throws OptionError naming the first bad one and its range. */
+// Method: STYLE.md habit 8 (parameters throw a typed error naming the parameter and the allowed range).
 export function resolveDebriefOptions(o: DebriefOptions = {}): ResolvedDebriefOptions {
   const t = o.turns ?? {};
   const d = DEFAULT_TURN_DETECTION;

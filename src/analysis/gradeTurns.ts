@@ -61,14 +61,14 @@ function readingAtT(t: Float64Array, r: Float64Array, k: number, tq: number): nu
 export function gradeTurns(
   state: FlightState, field: FieldAlongPath, compass: CompassTrace, spans: readonly TurnSpan[],
   plan: readonly PlanRow[] | undefined, o: ResolvedDebriefOptions,
-): { turns: Array<TurnResult & Required<Pick<TurnResult, 'cueMagDeg'>>>; warnings: LogWarning[] } {
+): { turns: TurnResult[]; warnings: LogWarning[] } {
   const { t, lat, segment, tasMs } = state;
   const reading = compass.readingDeg;
   const n = state.n;
   const warnings: LogWarning[] = [];
   const match = plan ? matchPlanToTurns(plan, spans.map((s) => s.startT)) : undefined;
   const candidates = o.inferCandidatesDeg ?? DEFAULT_TARGET_CANDIDATES_DEG;
-  const turns: Array<TurnResult & Required<Pick<TurnResult, 'cueMagDeg'>>> = [];
+  const turns: TurnResult[] = [];
   let inferredWithPlan = 0;
   let cutShort = 0;
   spans.forEach((sp, k) => {

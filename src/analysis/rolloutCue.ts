@@ -52,6 +52,7 @@ export function ruleOfThumbCueDeg(targetMagDeg: number, dir: 1 | -1, latDeg: num
  * How a cue relates to the target in the turn's direction: dir × (target − cue) wrapped [deg].
  * > 0: roll out before the compass shows the target (undershoot); < 0: let it run past the target (overshoot).
  */
+// Convention: UNOS wording of FAA-H-8083-15B ch. 7 (undershoot = roll out before the card shows the target).
 export function cueLeadDeg(targetMagDeg: number, cueDeg: number, dir: 1 | -1): number {
   return dir * wrap180(targetMagDeg - cueDeg);
 }

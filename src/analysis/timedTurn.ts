@@ -31,6 +31,7 @@ export function timedTurnCheck(
 }
 
 /** Whether a steady rate [°/s] is within ±share of standard rate (a rate-one turn). */
+// Source: standard rate 3 °/s, FAA-H-8083-15B ch. 7; the share is a team choice (debriefOptions.ts).
 export function isNearStandardRate(steadyRateDps: number, share: number): boolean {
   return Math.abs(steadyRateDps - STANDARD_RATE_DPS) <= share * STANDARD_RATE_DPS;
 }

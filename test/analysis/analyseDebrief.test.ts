@@ -105,6 +105,17 @@ describe('inputs and warnings', () => {
   });
 });
 
+describe('degenerate flights', () => {
+  it('an empty flight and a one-sample flight give empty results, no throw', () => {
+    for (const n of [0, 1]) {
+      const s = truthToFlightState(truth, 0, n);
+      const f = { ...field, n, ...Object.fromEntries((['xNt', 'yNt', 'zNt', 'hNt', 'variationDeg', 'dipDeg'] as const).map((k) => [k, field[k].subarray(0, n)])), zone: field.zone.subarray(0, n) };
+      const r = analyseDebrief(s, f, simulateCompass(s, f, DEFAULT_COMPASS_PROFILE), {});
+      expect(r.analysis).toEqual({ turns: [], episodes: [], divergences: [], excursions: [] });
+    }
+  });
+});
+
 describe('settledReading', () => {
   it('finds the first quiet 2 s of a damped card swing (oracle: the formula sampled at 1 kHz)', () => {
     // reading = 90 + 10 e^(−t/2) cos(2π t / 4), sampled at 10 Hz.
