@@ -16,6 +16,7 @@ import { UsageError } from './usageError.js';
 import { readDeviationFile } from './readDeviationFile.js';
 import { progressReporter } from './progress.js';
 import { readWindTable } from './readWindTable.js';
+import { readObservedReadings } from './readObservedReadings.js';
 
 /** Reads a small text side file (plan); errors name the file. */
 async function readTextFile(file: string, what: string): Promise<string> {
@@ -64,6 +65,7 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
     plan: { type: 'string' },
     excursion: { type: 'string' },
     tolerance: { type: 'string' },
+    observed: { type: 'string' },
   });
   if (values.help) {
     io.stdout(USAGE.report);
@@ -94,6 +96,7 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
   if (values.plan !== undefined) options.debrief!.planCsvText = await readTextFile(values.plan, 'plan');
   if (values.compass !== undefined) options.compass = await readCompassProfileFile(values.compass);
   if (values.deviation !== undefined) options.deviation = await readDeviationFile(values.deviation);
+  if (values.observed !== undefined) options.observed = await readObservedReadings(values.observed);
 
   let outcome;
   try {
@@ -107,7 +110,7 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
     throw err;
   }
   const { analysis, outputs } = outcome;
-  const inputs = [logPath, values.deviation, values.compass, values.plan, windArg.kind === 'file' ? windArg.path : undefined].filter((p): p is string => p !== undefined);
+  const inputs = [logPath, values.deviation, values.compass, values.plan, values.observed, windArg.kind === 'file' ? windArg.path : undefined].filter((p): p is string => p !== undefined);
   await writeOutputsAtomically(outputs, inputs);
   progress.done();
 
@@ -119,6 +122,11 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
     const windText = w ? `${Math.round(w.fromDegTrue).toString().padStart(3, '0')}/${Math.round(w.speedMs / KT_MS)} kt (${w.source})` : 'calm';
     const worst = iMax >= 0 ? `largest compass error ${Math.abs(c.errorDeg[iMax]).toFixed(0)}° at ${new Date(analysis.state.t[iMax] * 1000).toISOString().slice(11, 19)}Z` : 'no compass reading';
     io.stdout(`${path.basename(logPath)}: ${analysis.state.n} samples, wind ${windText}, ${worst}, ${analysis.warnings.length} warning(s)\n`);
+    const cal = analysis.calibration;
+    if (cal) {
+      io.stdout(`  compass fitted to ${cal.used} observed reading(s): RMS ${cal.initialRmsDeg.toFixed(1)}° → ${cal.rmsDeg.toFixed(1)}°${cal.converged ? '' : ' (did not converge: treat with care)'}\n`);
+      for (const p of cal.params) io.stdout(`    ${p.name.padEnd(20)} ${p.initial.toPrecision(3).padStart(8)} → ${p.value.toPrecision(3).padStart(8)} ± ${p.sigma.toPrecision(2)}${p.atBound ? ' (at its bound)' : ''}\n`);
+    }
     for (const o of outputs) io.stdout(`  wrote ${o.path}\n`);
   }
   return 0;

@@ -32,6 +32,8 @@ Options:
   --plan FILE         intended turns (CSV: target_mag_deg, optional not_before_utc) to grade against
   --excursion S/E     a span flown on the compass, UTC (e.g. 10:12:00/10:20:30), for the excursion analysis
   --tolerance DEG     roll-out tolerance in degrees (default 10)
+  --observed FILE     compass readings noted in flight (CSV: time_utc, compass_deg): the card's period,
+                      damping, swirl and pendulosity are fitted to them and the fit is reported
   --deviation FILE    compass-swing record (CSV: heading_mag_deg, compass_deg) to apply as deviation
   --compass FILE      compass profile (JSON) replacing the default card parameters
   --format F          force the log format (gpx, csv) instead of telling it from the content

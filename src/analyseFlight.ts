@@ -6,6 +6,7 @@ import type { WindOption } from './state/windOption.js';
 import { computeFieldAlongPath } from './magnetic/fieldAlongPath.js';
 import { simulateCompass } from './compass/simulateCompass.js';
 import { DEFAULT_COMPASS_PROFILE, type CompassProfile } from './compass/compassProfile.js';
+import { calibrateProfile, type CompassObservations } from './compass/calibrateProfile.js';
 import { analyseDebrief, type DebriefOptions } from './analysis/analyseDebrief.js';
 import type { FlightAnalysis } from './flightAnalysis.js';
 
@@ -25,6 +26,12 @@ export interface AnalyseOptions {
    * midnight UTC of the log's first day, a time before the log's start taken on the next day.
    */
   excursion?: { startT: number; endT: number; timeOfDay?: boolean };
+  /**
+   * Compass readings noted in flight (time, reading): the profile's period, damping, swirl and pendulosity
+   * are fitted to them by nonlinear least squares (calibrateProfile) and the compass is simulated with the
+   * fitted profile. The fit and its residuals are in FlightAnalysis.calibration.
+   */
+  observed?: CompassObservations;
   /** Called as each stage starts, for progress. */
   onStage?: (name: string) => void;
 }
@@ -70,9 +77,16 @@ export function analyseFlight(log: FlightLog, options: AnalyseOptions = {}, heal
   const { field, warnings: fieldWarnings } = timed(timingsMs, 'magnetic field along the path', onStage, () =>
     computeFieldAlongPath(state.t, state.lat, state.lon, state.altM),
   );
-  const compass = timed(timingsMs, 'simulating the compass', onStage, () =>
-    simulateCompass(state, field, options.compass ?? DEFAULT_COMPASS_PROFILE, options.deviation),
-  );
+  let profile = options.compass ?? DEFAULT_COMPASS_PROFILE;
+  let calibration: FlightAnalysis['calibration'];
+  if (options.observed) {
+    const observed = options.observed;
+    calibration = timed(timingsMs, 'fitting the compass to the observed readings', onStage, () =>
+      calibrateProfile(state, field, observed, profile, { deviation: options.deviation }),
+    );
+    profile = calibration.profile;
+  }
+  const compass = timed(timingsMs, 'simulating the compass', onStage, () => simulateCompass(state, field, profile, options.deviation));
   const debriefOptions: DebriefOptions = { ...(cleaned.route && !options.debrief?.route ? { route: cleaned.route } : {}), ...options.debrief };
   if (options.excursion) debriefOptions.excursion = resolveExcursion(options.excursion, state.n > 0 ? state.t[0] : NaN);
   const { analysis, warnings: debriefWarnings } = timed(timingsMs, 'debrief analyses', onStage, () =>
@@ -87,5 +101,5 @@ export function analyseFlight(log: FlightLog, options: AnalyseOptions = {}, heal
   }
   const compassWarnings: LogWarning[] = compass.warnings ?? [];
   const warnings: LogWarning[] = [...cleaned.source.warnings, ...state.warnings, ...fieldWarnings, ...compassWarnings, ...debriefWarnings];
-  return { log: cleaned, health: health2, state, field, compass, analysis, warnings, timingsMs };
+  return { log: cleaned, health: health2, state, field, compass, analysis, warnings, timingsMs, profile, ...(calibration ? { calibration } : {}) };
 }

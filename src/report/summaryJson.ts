@@ -144,6 +144,18 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
       unreliable_samples: c.unreliable.reduce((k, v) => k + (v ? 1 : 0), 0),
       deviation_sign_convention: 'deviation = magnetic − compass, easterly +; compass + deviation = magnetic',
     },
+    calibration: a.calibration
+      ? {
+          used: a.calibration.used,
+          iterations: a.calibration.iterations,
+          converged: a.calibration.converged,
+          initial_rms_deg: round(a.calibration.initialRmsDeg, 2),
+          rms_deg: round(a.calibration.rmsDeg, 2),
+          params: a.calibration.params.map((p) => ({ name: p.name, initial: round(p.initial, 4), value: round(p.value, 4), sigma: round(p.sigma, 4), at_bound: p.atBound })),
+          residuals_deg: Array.from(a.calibration.residualsDeg, (r) => round(r, 2)),
+        }
+      : null,
+    compass_profile: { ...a.profile },
     turns: an.turns.map((t) => ({
       start_utc: utc(t.startT),
       end_utc: utc(t.endT),

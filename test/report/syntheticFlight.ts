@@ -1,6 +1,7 @@
 // A synthetic FlightAnalysis for the report tests: typed columns filled from closed-form formulas.
 // Invented scenario: circuits and compass turns near the fictional "Harrowgate Fen Airstrip".
 // Not a physics oracle: the report only has to draw whatever the pipeline gives it.
+import { DEFAULT_COMPASS_PROFILE } from '../../src/compass/compassProfile.js';
 import { DEG, G0_MS2, KT_MS, RAD } from '../../src/constants.js';
 import { wrap180, wrap360 } from '../../src/geo/angles.js';
 import type { FlightAnalysis } from '../../src/flightAnalysis.js';
@@ -229,6 +230,7 @@ export function syntheticFlight(opts: SyntheticOptions): FlightAnalysis {
       source: { format: 'gpx', file: opts.hostile ? HOSTILE.file : 'samples/harrowgate-fen-circuits.gpx', warnings, meta, altDatum: 'msl' },
       t, lat, lon, altM, line: new Int32Array(n).map((_, k) => k + 1),
     },
+    profile: DEFAULT_COMPASS_PROFILE,
     health: { recordsRead: n + 22, samplesKept: n, duplicateTimes: 2, outOfOrder: 0, positionSpikes: 1, invalidValues: 20, gaps: 1, truncated: false },
     state: {
       n, t, lat, lon, altM, velN, velE, velD, accN, accE, accD, accSigmaMs2: accSigma, gsMs: gs, trackDegTrue: track,
