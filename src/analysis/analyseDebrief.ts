@@ -32,7 +32,7 @@ function iso(t: number): string {
  * @param state reconstructed flight; @param field WMM field along it; @param compass simulated compass trace
  * @param opts see DebriefOptions (defaults and their origins in debriefOptions.ts)
  * @returns { analysis, warnings } — warnings: plan-rows-unmatched, turns-not-in-plan, turns-cut-short,
- *   excursion-empty, excursion-does-not-close.
+ *   excursion-empty, excursion-does-not-close, route-unusable (a route with < 2 usable waypoints is set aside).
  * @throws OptionError for a bad option or columns of different lengths; ParseError (with the line) for a bad plan.
  * @example analyseDebrief(state, field, compass, { planCsvText: 'target_mag_deg\n090\n', toleranceDeg: 10 })
  */
@@ -46,6 +46,9 @@ export function analyseDebrief(
   if (compass.n !== n) throw new OptionError('compass', `has ${compass.n} samples, the flight state ${n}`);
   const plan = o.planCsvText !== undefined ? parsePlanCsv(o.planCsvText) : undefined;
   const warnings: LogWarning[] = [];
+  if (o.routeProblem !== undefined) {
+    warnings.push({ code: 'route-unusable', message: `The planned route was not used for cross-track: ${o.routeProblem}.` });
+  }
 
   const spans = detectTurns(state, o.turns);
   const graded = gradeTurns(state, field, compass, spans, plan, o);

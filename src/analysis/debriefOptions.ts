@@ -119,6 +119,8 @@ export interface ResolvedDebriefOptions {
   planCsvText: string | undefined;
   excursion: { startT: number; endT: number } | undefined;
   route: PlannedRoute | undefined;
+  /** Why a given route was set aside (fewer than two usable waypoints), for a warning; undefined when fine or absent. */
+  routeProblem: string | undefined;
   toleranceDeg: number;
   divergenceThresholdDeg: number;
   divergenceMinS: number;
@@ -180,16 +182,19 @@ export function resolveDebriefOptions(o: DebriefOptions = {}): ResolvedDebriefOp
     }
     excursion = { startT: excursion.startT, endT: excursion.endT };
   }
-  if (o.route !== undefined) {
-    const r = o.route;
+  // A route usually comes from the log file itself, so a bad one is set aside with a warning, never thrown.
+  let route = o.route;
+  let routeProblem: string | undefined;
+  if (route !== undefined) {
+    const r = route;
     if (!r.lat || !r.lon || r.lat.length !== r.lon.length || r.lat.length < 2) {
-      throw new OptionError('route', 'needs at least two waypoints with as many latitudes as longitudes');
-    }
-    for (let i = 0; i < r.lat.length; i++) {
-      if (!(Math.abs(r.lat[i]) <= 90 && Number.isFinite(r.lon[i]))) {
-        throw new OptionError('route', `waypoint ${i + 1} has no valid position (${String(r.lat[i])}, ${String(r.lon[i])})`);
+      routeProblem = 'it needs at least two waypoints with as many latitudes as longitudes';
+    } else {
+      for (let i = 0; i < r.lat.length && routeProblem === undefined; i++) {
+        if (!(Math.abs(r.lat[i]) <= 90 && Number.isFinite(r.lon[i]))) routeProblem = `waypoint ${i + 1} has no valid position`;
       }
     }
+    if (routeProblem !== undefined) route = undefined;
   }
   if (o.inferCandidatesDeg !== undefined) {
     const cs = o.inferCandidatesDeg;
@@ -215,7 +220,8 @@ export function resolveDebriefOptions(o: DebriefOptions = {}): ResolvedDebriefOp
   return {
     planCsvText: o.planCsvText,
     excursion,
-    route: o.route,
+    route,
+    routeProblem,
     toleranceDeg: num('toleranceDeg', o.toleranceDeg, DEFAULT_TOLERANCE_DEG, 0, 90, true, '°'),
     divergenceThresholdDeg,
     divergenceMinS: num('divergenceMinS', o.divergenceMinS, DEFAULT_DIVERGENCE_MIN_S, 0, 3600, false, 's'),

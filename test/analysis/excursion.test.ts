@@ -148,6 +148,13 @@ describe('detected compass legs and empty spans', () => {
     expect(ex[0].endT - ex[0].startT).toBeCloseTo(T, 0);
     expect(analyseDebrief(state, field, compass, { detectExcursions: false }).analysis.excursions).toEqual([]);
   });
+  it('a route with fewer than two usable waypoints is set aside with a warning (it comes from the file: no throw)', () => {
+    const state = truthToFlightState(truth);
+    const { field, compass } = compassOn(state);
+    const r = analyseDebrief(state, field, compass, { excursion: { startT: t0, endT: t0 + T }, route: { lat: new Float64Array([52.6]), lon: new Float64Array([0.4]), names: ['A'] } });
+    expect(r.warnings.map((w) => w.code)).toEqual(['route-unusable']);
+    expect(r.analysis.excursions[0].route).toBeUndefined();
+  });
   it('a span given outside the flight is reported, not analysed', () => {
     const state = truthToFlightState(truth);
     const { field, compass } = compassOn(state);
