@@ -1,0 +1,73 @@
+// One batch flight as a worker does it: the shared debrief steps, the outputs written whole, the facts sent back.
+import { InputError, OptionError } from '../errors.js';
+import type { CompassProfile } from '../compass/compassProfile.js';
+import { deviationAtDeg, type SmithCoefficients } from '../deviation/smithCoefficients.js';
+import type { ReportAssets } from '../report/renderReport.js';
+import { writeOutputsAtomically } from '../report/writeAtomic.js';
+import type { WindOption } from '../state/windOption.js';
+import { debriefOneFlight } from './debriefOneFlight.js';
+import type { FailureKind } from './flightCatalogue.js';
+import { flightFacts, type FlightFacts } from './flightFacts.js';
+
+/** Everything a worker needs for one flight; plain data (structured-clonable), no functions. */
+export interface BatchJob {
+  /** Absolute path of the log (a worker's cwd need not be the user's). */
+  logPath: string;
+  /** The log's path as the user sees it, used in error lines. */
+  displayPath: string;
+  htmlPath: string;
+  samplesPath: string;
+  jsonPath: string;
+  /** Tag overrides (options, else side file); undefined keeps the log's own. */
+  aircraft?: string;
+  pilot?: string;
+  wind: WindOption;
+  compass?: CompassProfile;
+  /** Smith's coefficients of the deviation card to apply (easterly +, compass + deviation = magnetic). */
+  deviation?: SmithCoefficients;
+  /** Files never to overwrite (the log and the side files). */
+  protectedPaths: string[];
+  /** Time stamp printed in every report of the batch [ISO 8601 UTC]. */
+  generatedAtUtc: string;
+}
+
+export type BatchJobOutcome =
+  | { status: 'ok'; facts: FlightFacts; elapsedMs: number }
+  | { status: 'failed'; error: string; errorKind: FailureKind; elapsedMs: number };
+
+/**
+ * The one line a failed flight shows: InputError's own line (with `logPath` written as `displayPath`),
+ * else the first line of the message prefixed by the log's displayed path.
+ */
+export function failureLine(logPath: string, displayPath: string, err: unknown): { error: string; errorKind: FailureKind } {
+  if (err instanceof InputError) {
+    const e = err.file === logPath ? new InputError(displayPath, err.message, { line: err.line, hint: err.hint }) : err;
+    return { error: e.oneLine(), errorKind: 'input' };
+  }
+  if (err instanceof OptionError) return { error: `${displayPath}: ${err.message}`, errorKind: 'input' };
+  const msg = err instanceof Error ? err.message : String(err);
+  return { error: `${displayPath}: ${msg.split('\n')[0]}`, errorKind: 'internal' };
+}
+
+/**
+ * Debriefs one batch flight (debriefOneFlight, the same steps as `report`) and writes its HTML, samples
+ * CSV and summary JSON whole or not at all. Never throws: a failure comes back as one line.
+ */
+export async function runBatchJob(job: BatchJob, assets: ReportAssets): Promise<BatchJobOutcome> {
+  const t0 = performance.now();
+  try {
+    const card = job.deviation;
+    const { analysis, outputs } = await debriefOneFlight(
+      { logPath: job.logPath, aircraft: job.aircraft, pilot: job.pilot, htmlPath: job.htmlPath, samplesPath: job.samplesPath, jsonPath: job.jsonPath },
+      {
+        analyse: { wind: job.wind, compass: job.compass, deviation: card ? (compassDeg: number) => deviationAtDeg(card, compassDeg) : undefined },
+        assets,
+        generatedAt: new Date(job.generatedAtUtc),
+      },
+    );
+    await writeOutputsAtomically(outputs, job.protectedPaths);
+    return { status: 'ok', facts: flightFacts(analysis), elapsedMs: performance.now() - t0 };
+  } catch (err) {
+    return { status: 'failed', ...failureLine(job.logPath, job.displayPath, err), elapsedMs: performance.now() - t0 };
+  }
+}
