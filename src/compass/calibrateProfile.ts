@@ -7,6 +7,7 @@
 // time constants) are fitted as logarithms. Residual r_k = wrap180(simulated reading at t_k − observed reading).
 // Parameter 1-sigma from s²(JᵀJ)⁻¹ at the solution, s² = Σr²/(m − p) (linearised; an optimistic bound when the
 // residuals are correlated in time, as video readings of a swinging card are).
+import { wrap180 } from '../geo/angles.js';
 import { OptionError } from '../errors.js';
 import type { FlightState } from '../state/flightState.js';
 import type { FieldAlongPath } from '../magnetic/fieldAlongPath.js';
@@ -61,13 +62,6 @@ export interface CalibrationResult {
   iterations: number;
   converged: boolean;
   correlation: number[][];
-}
-
-function wrap180(d: number): number {
-  let r = d % 360;
-  if (r > 180) r -= 360;
-  if (r <= -180) r += 360;
-  return r;
 }
 
 /** Index mapping each observation to the state interval [j, j+1] containing it and the fraction, once. */

@@ -24,6 +24,7 @@
 //   errDeviationDeg = reading − dynamic = −δ(reading) (deviation δ east +, compass + δ = magnetic).
 //   errLagSwirlDeg = errorDeg − the three above ≡ dynamic − static (mod 360): card lag, overshoot, swirl, tilt lag.
 // So errDipTurnDeg + errDipAccelDeg + errLagSwirlDeg + errDeviationDeg = errorDeg up to rounding (~1e-13°).
+import { wrap180, wrap360 } from '../geo/angles.js';
 import { G0_MS2 } from '../constants.js';
 import type { FlightState } from '../state/flightState.js';
 import type { FieldAlongPath } from '../magnetic/fieldAlongPath.js';
@@ -49,17 +50,6 @@ const ZONE_BLACKOUT = 2;
 /** Options of the integration. maxStepS: largest sub-step [s], (0, 0.05]; default 0.05 (20 Hz). */
 export interface SimulateCompassOptions {
   maxStepS?: number;
-}
-
-function wrap360(d: number): number {
-  const r = d % 360;
-  const w = r < 0 ? r + 360 : r;
-  return w >= 360 ? 0 : w + 0;
-}
-
-function wrap180(d: number): number {
-  const w = wrap360(d);
-  return w > 180 ? w - 360 : w;
 }
 
 /** Wraps a radian difference to (−π, π]. */

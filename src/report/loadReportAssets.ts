@@ -1,25 +1,12 @@
 // loadReportAssets: reads the report template files and the chart library from disk (I/O edge).
-import { existsSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
 import { InputError } from '../errors.js';
 import type { ReportAssets } from './renderReport.js';
+import { packageRoot } from '../util/packageRoot.js';
 
-/**
- * The package root: the nearest folder above this module holding package.json. Works from src/report
- * (vitest on the sources) and from dist/src/report (after tsc).
- * @throws InputError when no package.json is found above the module
- */
-export function packageRoot(fromUrl: string = import.meta.url): string {
-  let dir = dirname(fileURLToPath(fromUrl));
-  for (;;) {
-    if (existsSync(join(dir, 'package.json'))) return dir;
-    const up = dirname(dir);
-    if (up === dir) throw new InputError(fileURLToPath(fromUrl), 'no package.json above the report module', { hint: 'install compass-debrief as a package' });
-    dir = up;
-  }
-}
+export { packageRoot } from '../util/packageRoot.js';
 
 function readText(path: string): string {
   try {
