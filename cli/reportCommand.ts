@@ -1,6 +1,8 @@
 // `compass-debrief report <log>`: read, analyse, write the debrief (HTML), samples CSV and summary JSON.
 import path from 'node:path';
-import { promises as fsp } from 'node:fs';
+import { existsSync, promises as fsp } from 'node:fs';
+import type { ReadOptions } from '../src/import/readLog.js';
+import { parseColumnMapping } from '../src/import/columnMapping.js';
 import { InputError, ParseError } from '../src/errors.js';
 import type { AnalyseOptions } from '../src/analyseFlight.js';
 import type { LogFormat } from '../src/log/flightLog.js';
@@ -49,6 +51,39 @@ export function parseExcursion(text: string): NonNullable<AnalyseOptions['excurs
   return { startT: a.t, endT: b.t, timeOfDay: a.timeOfDay };
 }
 
+/**
+ * --columns (inline `time=Zeit,lat=Breite` or a mapping file), --date YYYY-MM-DD (logs with times of day
+ * only), --tz-offset ±HH:MM or minutes (local times without a zone), --heading-ref true|magnetic.
+ */
+async function readOptionsFrom(values: { columns?: string; date?: string; 'tz-offset'?: string; 'heading-ref'?: string }): Promise<Omit<ReadOptions, 'format'>> {
+  const read: Omit<ReadOptions, 'format'> = {};
+  if (values.columns !== undefined) {
+    const text = /[=:]/.test(values.columns) && !existsSync(values.columns) ? values.columns : await readTextFile(values.columns, 'column mapping');
+    try {
+      read.columns = parseColumnMapping(text);
+    } catch (err) {
+      throw new UsageError('report', `--columns: ${(err as Error).message}`);
+    }
+  }
+  if (values.date !== undefined) {
+    if (!/^\d{4}-\d{2}-\d{2}$/.test(values.date) || !Number.isFinite(Date.parse(`${values.date}T00:00:00Z`))) throw new UsageError('report', `--date ${values.date}: expected YYYY-MM-DD`);
+    read.date = values.date;
+  }
+  const tz = values['tz-offset'];
+  if (tz !== undefined) {
+    const m = /^([+-])(\d{1,2}):?(\d{2})$/.exec(tz.trim());
+    const minutes = m ? (m[1] === '-' ? -1 : 1) * (Number(m[2]) * 60 + Number(m[3])) : Number(tz);
+    if (!(Number.isFinite(minutes) && Math.abs(minutes) <= 14 * 60)) throw new UsageError('report', `--tz-offset ${tz}: expected ±HH:MM east of UTC (e.g. +02:00) or minutes, within ±14 h`);
+    read.tzOffsetMin = minutes;
+  }
+  const ref = values['heading-ref'];
+  if (ref !== undefined) {
+    if (ref !== 'true' && ref !== 'magnetic') throw new UsageError('report', `--heading-ref ${ref}: expected true or magnetic`);
+    read.headingRef = ref;
+  }
+  return read;
+}
+
 const FORMATS: LogFormat[] = ['gpx', 'csv', 'igc', 'nmea', 'fit', 'kml'];
 
 export async function reportCommand(args: string[], io: CliIo): Promise<number> {
@@ -66,6 +101,10 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
     excursion: { type: 'string' },
     tolerance: { type: 'string' },
     observed: { type: 'string' },
+    columns: { type: 'string' },
+    date: { type: 'string' },
+    'tz-offset': { type: 'string' },
+    'heading-ref': { type: 'string' },
   });
   if (values.help) {
     io.stdout(USAGE.report);
@@ -86,6 +125,7 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
     if (!FORMATS.includes(values.format as LogFormat)) throw new UsageError('report', `--format ${values.format}: expected one of ${FORMATS.join(', ')}`);
     format = values.format as LogFormat;
   }
+  const read = await readOptionsFrom(values);
   const outHtml = values.out ?? path.join(io.cwd, `${path.basename(logPath).replace(/\.[^.]+$/, '')}.debrief.html`);
   const progress = progressReporter(io, Boolean(values.quiet));
 
@@ -101,7 +141,7 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
   let outcome;
   try {
     outcome = await debriefOneFlight(
-      { logPath, format, aircraft: values.aircraft, pilot: values.pilot, htmlPath: outHtml, samplesPath: values.samples, jsonPath: values.json },
+      { logPath, format, read, aircraft: values.aircraft, pilot: values.pilot, htmlPath: outHtml, samplesPath: values.samples, jsonPath: values.json },
       { analyse: options, onStage: (name) => progress.stage(name) },
     );
   } catch (err) {

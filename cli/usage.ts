@@ -10,9 +10,11 @@ Usage:
   compass-debrief field <lat> <lon> [--alt-ft N] [--date YYYY-MM-DD]
                                              World Magnetic Model 2025 at one place
   compass-debrief demo [--out-dir DIR]       write the debriefs of the bundled samples
+  compass-debrief batch <folders or logs…> --out-dir DIR [--jobs N]
+                                             debrief many flights: overview, catalogue, trends
   compass-debrief <command> --help           help on one command
 
-Logs: GPX 1.1, CSV; the format is told from the content.
+Logs: GPX, CSV, IGC, NMEA 0183, FIT, KML (gx:Track); the format is told from the content.
 Examples:
   compass-debrief report samples/circuit-practice.gpx --wind 250/15 --out lesson.html
   compass-debrief field 52.61 0.42 --alt-ft 2500
@@ -36,7 +38,12 @@ Options:
                       damping, swirl and pendulosity are fitted to them and the fit is reported
   --deviation FILE    compass-swing record (CSV: heading_mag_deg, compass_deg) to apply as deviation
   --compass FILE      compass profile (JSON) replacing the default card parameters
-  --format F          force the log format (gpx, csv) instead of telling it from the content
+  --format F          force the log format (gpx, csv, igc, nmea, fit, kml) instead of telling it from the content
+  --columns MAP       CSV column names for unusual headers: time=Zeit,lat=Breite,lon=Laenge,alt=Hoehe
+                      (roles: time date lat lon alt gs track heading roll pitch tas ias hacc), or a file
+  --date YYYY-MM-DD   the date for logs that hold only times of day
+  --tz-offset ±HH:MM  local time of a log written without a time zone, east of UTC (e.g. +02:00)
+  --heading-ref R     what a CSV heading column refers to when its header does not say: true or magnetic
   --aircraft NAME     aircraft shown in the debrief
   --pilot NAME        pilot shown in the debrief
   --quiet             print nothing but errors
@@ -75,6 +82,38 @@ Options:
   -h, --help        this help
 Example:
   compass-debrief field -41.5 173.9 --alt-ft 3000 --date 2026-06-01
+`,
+  batch: `Usage: compass-debrief batch <folders or logs…> --out-dir DIR [options]
+
+Debriefs every flight log given or found in the folders (searched recursively: files ending .gpx .csv
+.igc .nmea .txt .fit .kml, and other files whose content is a log; other files are left out with a
+note), several at a time on worker threads. DIR receives one debrief per flight (<name>.debrief.html,
+<name>.samples.csv, <name>.summary.json), index.html (an overview linking to each debrief, with each
+pilot's compass-turn grades across lessons and each aircraft's compass error across the season),
+overview.csv, and catalogue.sqlite (one row per flight, kept across runs). A flight whose log, options
+and tool version are unchanged since the last run is kept, not analysed again. A broken log is listed
+as failed and does not stop the batch.
+Tags: --aircraft/--pilot, else a side file <log>.tags.json ({"aircraft": "...", "pilot": "..."}) beside
+the log, else the log's own.
+
+Options:
+  --out-dir DIR       output folder (required; made when missing)
+  --jobs N            flights analysed at once, 1 to 64 (default: the number of processors)
+  --wind W            DDD/SS, calm, auto (default) or a wind table file, for every flight
+  --deviation FILE    compass-swing record to apply as deviation to every flight
+  --compass FILE      compass profile (JSON) for every flight
+  --tolerance DEG     roll-out tolerance for grading turns
+  --aircraft NAME     aircraft tag for every flight
+  --pilot NAME        pilot tag for every flight
+  --force             analyse every flight again, changed or not
+  --quiet             print nothing but errors (the failed flights, one line each)
+  --debug             print a stack trace on failure
+  -h, --help          this help
+
+Exit codes: 0 the batch ran and at least one flight is ok (failed ones are listed on stderr and in the
+overview); 1 every flight failed, or no log was found; 2 the command line is wrong.
+Example:
+  compass-debrief batch logs/ extra/lesson-12.gpx --out-dir debriefs --wind 250/15 --jobs 4
 `,
   demo: `Usage: compass-debrief demo [--out-dir DIR]
 

@@ -3,7 +3,7 @@
 // loadReportAssets); it writes nothing: the caller writes the pending outputs (writeOutputsAtomically).
 import { analyseFlight, type AnalyseOptions } from '../analyseFlight.js';
 import type { FlightAnalysis } from '../flightAnalysis.js';
-import { readLogFile } from '../import/readLog.js';
+import { readLogFile, type ReadOptions } from '../import/readLog.js';
 import type { LogFormat } from '../log/flightLog.js';
 import { loadReportAssets } from '../report/loadReportAssets.js';
 import { buildReportModel } from '../report/reportModel.js';
@@ -17,6 +17,8 @@ export interface DebriefRequest {
   /** The flight log (any supported format; told from the content unless `format` is given). */
   logPath: string;
   format?: LogFormat;
+  /** Further reading options: date and time zone for local times, CSV column mapping, heading reference, progress. */
+  read?: Omit<ReadOptions, 'format'>;
   /** Tags that replace the log's own meta.aircraft / meta.pilot when given (never markup: escaped in the page). */
   aircraft?: string;
   pilot?: string;
@@ -56,7 +58,7 @@ export interface DebriefOutcome {
 export async function debriefOneFlight(req: DebriefRequest, settings: DebriefSettings): Promise<DebriefOutcome> {
   const onStage = settings.onStage;
   onStage?.('reading the log');
-  const { log, health } = await readLogFile(req.logPath, { format: req.format });
+  const { log, health } = await readLogFile(req.logPath, { ...req.read, format: req.format });
   if (req.aircraft !== undefined) log.source.meta.aircraft = req.aircraft;
   if (req.pilot !== undefined) log.source.meta.pilot = req.pilot;
 

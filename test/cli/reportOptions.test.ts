@@ -69,6 +69,31 @@ describe('--observed', () => {
   });
 });
 
+describe('reading options', () => {
+  it('reads a CSV with its own headers through --columns, local times through --tz-offset, decimal commas by detection', async () => {
+    const rows = ['Zeit;Breite;Laenge;Hoehe'];
+    for (let i = 0; i < 120; i++) rows.push(`2026-05-04 12:${String(Math.floor(i / 60)).padStart(2, '0')}:${String(i % 60).padStart(2, '0')};${(52 + 0.0004 * i).toFixed(6).replace('.', ',')};10,000000;500`);
+    const csv = path.join(dir, 'eigen.csv');
+    writeFileSync(csv, rows.join('\n') + '\n');
+    const json = path.join(dir, 'eigen.json');
+    const r = await runCli(['report', csv, '--columns', 'time=Zeit,lat=Breite,lon=Laenge,alt=Hoehe', '--tz-offset', '+02:00', '--json', json, '--out', path.join(dir, 'eigen.html')]);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(readFileSync(json, 'utf8'));
+    expect(j.start_utc).toBe('2026-05-04T10:00:00.000Z'); // 12:00 at UTC+2
+    expect(j.samples).toBe(120);
+  });
+
+  it.each([
+    [['--tz-offset', '+25:00'], /--tz-offset/],
+    [['--date', '4 May'], /--date/],
+    [['--heading-ref', 'grid'], /--heading-ref/],
+  ])('rejects %j as a usage error', async (extra, pattern) => {
+    const r = await runCli(['report', gpx, ...(extra as string[])]);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(pattern);
+  });
+});
+
 describe('--plan, --tolerance, --excursion, wind tables', () => {
   it('grades turns against the plan with the tolerance given', async () => {
     const plan = path.join(dir, 'plan.csv');
