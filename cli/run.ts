@@ -7,6 +7,7 @@ import { reportCommand } from './reportCommand.js';
 import { swingCommand } from './swingCommand.js';
 import { fieldCommand } from './fieldCommand.js';
 import { demoCommand } from './demoCommand.js';
+import { batchCommand } from './batchCommand.js';
 
 type Command = (args: string[], io: CliIo) => Promise<number>;
 
@@ -15,6 +16,7 @@ const COMMANDS: Record<string, Command> = {
   swing: swingCommand,
   field: fieldCommand,
   demo: demoCommand,
+  batch: batchCommand,
 };
 
 /** Runs one command line (without the node and script words) and returns the exit code. */

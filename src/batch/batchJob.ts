@@ -1,5 +1,5 @@
 // One batch flight as a worker does it: the shared debrief steps, the outputs written whole, the facts sent back.
-import { InputError, OptionError } from '../errors.js';
+import { InputError, OptionError, ParseError } from '../errors.js';
 import type { CompassProfile } from '../compass/compassProfile.js';
 import { deviationAtDeg, type SmithCoefficients } from '../deviation/smithCoefficients.js';
 import type { ReportAssets } from '../report/renderReport.js';
@@ -25,6 +25,10 @@ export interface BatchJob {
   compass?: CompassProfile;
   /** Smith's coefficients of the deviation card to apply (easterly +, compass + deviation = magnetic). */
   deviation?: SmithCoefficients;
+  /** Roll-out tolerance for grading turns [deg]; default that of the debrief analyses. */
+  toleranceDeg?: number;
+  /** The turn plan side file (its path for error lines, and its text). */
+  plan?: { file: string; text: string };
   /** Files never to overwrite (the log and the side files). */
   protectedPaths: string[];
   /** Time stamp printed in every report of the batch [ISO 8601 UTC]. */
@@ -60,7 +64,15 @@ export async function runBatchJob(job: BatchJob, assets: ReportAssets): Promise<
     const { analysis, outputs } = await debriefOneFlight(
       { logPath: job.logPath, aircraft: job.aircraft, pilot: job.pilot, htmlPath: job.htmlPath, samplesPath: job.samplesPath, jsonPath: job.jsonPath },
       {
-        analyse: { wind: job.wind, compass: job.compass, deviation: card ? (compassDeg: number) => deviationAtDeg(card, compassDeg) : undefined },
+        analyse: {
+          wind: job.wind,
+          compass: job.compass,
+          deviation: card ? (compassDeg: number) => deviationAtDeg(card, compassDeg) : undefined,
+          debrief: {
+            ...(job.toleranceDeg !== undefined ? { toleranceDeg: job.toleranceDeg } : {}),
+            ...(job.plan ? { planCsvText: job.plan.text } : {}),
+          },
+        },
         assets,
         generatedAt: new Date(job.generatedAtUtc),
       },
@@ -68,6 +80,8 @@ export async function runBatchJob(job: BatchJob, assets: ReportAssets): Promise<
     await writeOutputsAtomically(outputs, job.protectedPaths);
     return { status: 'ok', facts: flightFacts(analysis), elapsedMs: performance.now() - t0 };
   } catch (err) {
-    return { status: 'failed', ...failureLine(job.logPath, job.displayPath, err), elapsedMs: performance.now() - t0 };
+    // The plan is parsed inside the analysis: name the plan file and its line (as `report --plan` does).
+    const e = err instanceof ParseError && job.plan ? new InputError(job.plan.file, err.message, { line: err.line, hint: err.hint }) : err;
+    return { status: 'failed', ...failureLine(job.logPath, job.displayPath, e), elapsedMs: performance.now() - t0 };
   }
 }

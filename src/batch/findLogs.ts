@@ -10,6 +10,9 @@ export const LOG_EXTENSIONS: readonly string[] = ['.gpx', '.csv', '.igc', '.nmea
 /** Tag side files (`<log>.tags.json`) belong to a log; they are never candidates themselves. */
 export const TAGS_SUFFIX = '.tags.json';
 
+/** Turn plans (`<log>.plan.csv`, the report's --plan file) belong to a log; never candidates themselves. */
+export const PLAN_SUFFIX = '.plan.csv';
+
 /** A folder holding this file is a batch's output folder; its samples CSVs are not flights. */
 export const CATALOGUE_FILE = 'catalogue.sqlite';
 
@@ -59,7 +62,7 @@ async function classify(file: string): Promise<{ log: true } | { log: false; not
     detectFormat(head);
     return { log: true };
   } catch (err) {
-    if (err instanceof ParseError) return { log: false, note: `not a flight log: ${err.message}` };
+    if (err instanceof ParseError) return { log: false, note: err.message };
     throw err;
   }
 }
@@ -68,8 +71,8 @@ async function classify(file: string): Promise<{ log: true } | { log: false; not
  * Expands the batch inputs. A file named on the command line is always a candidate (even a broken one:
  * the batch reports why it fails). In a folder, searched recursively in name order: files ending in one
  * of LOG_EXTENSIONS are candidates; other files are candidates when their content is detected as a log
- * (detectFormat), else skipped with a note; hidden names (leading dot) and `*.tags.json` side files are
- * passed over silently; `excludeDirs` (the output folder) silently; folders holding catalogue.sqlite
+ * (detectFormat), else skipped with a note; hidden names (leading dot) and the side files `*.tags.json`
+ * and `*.plan.csv` are passed over silently; `excludeDirs` (the output folder) silently; folders holding catalogue.sqlite
  * (another batch's output) and symbolic links to folders are skipped with a note.
  * A named input that does not exist is returned as a candidate too, so that it is reported as failed.
  * @param inputs paths as given (relative to `cwd`)
@@ -99,7 +102,8 @@ export async function findLogs(inputs: string[], opts: { cwd: string; excludeDir
     }
     entries.sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
     for (const e of entries) {
-      if (e.name.startsWith('.') || e.name.toLowerCase().endsWith(TAGS_SUFFIX)) continue;
+      const lower = e.name.toLowerCase();
+      if (e.name.startsWith('.') || lower.endsWith(TAGS_SUFFIX) || lower.endsWith(PLAN_SUFFIX)) continue;
       const shown = path.join(dirShown, e.name);
       const abs = path.join(dirAbs, e.name);
       let isDir = e.isDirectory();

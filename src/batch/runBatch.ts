@@ -17,7 +17,7 @@ import { openCatalogue, type CatalogueRow, type FailureKind, type FlightCatalogu
 import type { FlightFacts } from './flightFacts.js';
 import { overviewCsv } from './overviewCsv.js';
 import { overviewHtml } from './overviewHtml.js';
-import { readTags, type FlightTags } from './readTags.js';
+import { readPlanSideFile, readTags, type FlightTags } from './sideFiles.js';
 import { reportFiles, uniqueReportBases } from './reportNames.js';
 import { runOnWorkers } from './workerPool.js';
 
@@ -38,6 +38,8 @@ export interface BatchSettings {
   /** Tags for every flight, over the side files and the logs' own. */
   aircraft?: string;
   pilot?: string;
+  /** Roll-out tolerance for grading turns [deg, > 0 and ≤ 90]; default that of the debrief analyses. */
+  toleranceDeg?: number;
   /** Analyse every flight even when unchanged. */
   force?: boolean;
   /** Progress: called on the main thread. */
@@ -65,6 +67,12 @@ export interface BatchResult {
   overviewPath: string;
   csvPath: string;
   cataloguePath: string;
+}
+
+/** The worker module beside this one, with this module's own extension (.ts when run from the sources). */
+export function defaultWorkerEntry(): URL {
+  const ext = import.meta.url.endsWith('.ts') ? '.ts' : '.js';
+  return new URL(`./batchWorker${ext}`, import.meta.url);
 }
 
 /** The package version (package.json), part of the re-run key. */
@@ -118,8 +126,9 @@ interface Planned {
   base: string;
   sha: string;
   tags: FlightTags;
-  /** The side file failed: the flight fails with this line without a worker. */
-  tagsError?: { error: string; errorKind: FailureKind };
+  plan?: { file: string; text: string };
+  /** A side file failed: the flight fails with this line without a worker. */
+  sideError?: { error: string; errorKind: FailureKind };
   optionsSha: string;
   readError?: string;
 }
@@ -136,6 +145,9 @@ interface Planned {
 export async function runBatch(s: BatchSettings): Promise<BatchResult> {
   if (!Number.isInteger(s.jobs) || s.jobs < 1 || s.jobs > MAX_JOBS) throw new OptionError('jobs', `must be a whole number from 1 to ${MAX_JOBS}, got ${s.jobs}`);
   checkWindOption(s.wind);
+  if (s.toleranceDeg !== undefined && !(Number.isFinite(s.toleranceDeg) && s.toleranceDeg > 0 && s.toleranceDeg <= 90)) {
+    throw new OptionError('toleranceDeg', `must be above 0 and at most 90 degrees, got ${s.toleranceDeg}`);
+  }
   const outAbs = path.resolve(s.cwd, s.outDir);
   try {
     await fsp.mkdir(outAbs, { recursive: true });
@@ -161,11 +173,13 @@ export async function runBatch(s: BatchSettings): Promise<BatchResult> {
       readError = unreadLine(found.path, err);
     }
     let tags: FlightTags = {};
-    let tagsError: Planned['tagsError'];
+    let plan: Planned['plan'];
+    let sideError: Planned['sideError'];
     try {
       tags = await readTags(found.absPath);
+      plan = await readPlanSideFile(found.absPath);
     } catch (err) {
-      tagsError = { error: err instanceof InputError ? err.oneLine() : String(err), errorKind: 'input' };
+      sideError = { error: err instanceof InputError ? err.oneLine() : String(err), errorKind: 'input' };
     }
     const aircraft = s.aircraft ?? tags.aircraft;
     const pilot = s.pilot ?? tags.pilot;
@@ -173,11 +187,13 @@ export async function runBatch(s: BatchSettings): Promise<BatchResult> {
       wind: s.wind,
       compass: s.compass?.profile ?? null,
       deviation: s.deviation?.coefficients ?? null,
+      toleranceDeg: s.toleranceDeg ?? null,
       aircraft: aircraft ?? null,
       pilot: pilot ?? null,
-      tagsError: tagsError?.error ?? null,
+      plan: plan?.text ?? null,
+      sideError: sideError?.error ?? null,
     });
-    planned.push({ found, base: bases[i], sha, tags: { ...tags, aircraft, pilot }, tagsError, optionsSha, readError });
+    planned.push({ found, base: bases[i], sha, tags: { ...tags, aircraft, pilot }, plan, sideError, optionsSha, readError });
   }
 
   const cataloguePath = path.join(outAbs, CATALOGUE_FILE);
@@ -238,7 +254,7 @@ async function runPlanned(
     const keep =
       same && !s.force && (prev.status === 'ok' ? prev.reportBase === p.base && outputsExist(ctx.outAbs, p.base) : prev.errorKind !== 'worker');
     if (keep) flights[i] = { inputPath: p.found.path, run: 'unchanged', note: '', row: { ...prev, inputPath: p.found.path } };
-    else if (p.tagsError) failNow.push(i);
+    else if (p.sideError) failNow.push(i);
     else toAnalyse.push(i);
   });
   const unchanged = flights.filter((f) => f?.run === 'unchanged').length;
@@ -256,7 +272,7 @@ async function runPlanned(
   for (const i of failNow) {
     const p = planned[i];
     await removeOutputs(ctx.outAbs, p.base);
-    finish(i, rowFor(p, emptyFacts(p.tags), { status: 'failed', error: p.tagsError!.error, errorKind: p.tagsError!.errorKind, reportBase: '' }));
+    finish(i, rowFor(p, emptyFacts(p.tags), { status: 'failed', error: p.sideError!.error, errorKind: p.sideError!.errorKind, reportBase: '' }));
   }
 
   const jobs: BatchJob[] = toAnalyse.map((i) => {
@@ -273,12 +289,14 @@ async function runPlanned(
       wind: s.wind,
       compass: s.compass?.profile,
       deviation: s.deviation?.coefficients,
-      protectedPaths: [p.found.absPath, ...ctx.sideInputs, ...(p.tags.file ? [p.tags.file] : [])],
+      toleranceDeg: s.toleranceDeg,
+      plan: p.plan,
+      protectedPaths: [p.found.absPath, ...ctx.sideInputs, ...(p.tags.file ? [p.tags.file] : []), ...(p.plan ? [p.plan.file] : [])],
       generatedAtUtc: ctx.now.toISOString(),
     };
   });
   const stale: number[] = [];
-  await runOnWorkers<BatchJob, BatchJobOutcome>(s.workerEntry ?? new URL('./batchWorker.js', import.meta.url), jobs, s.jobs, (k, result) => {
+  await runOnWorkers<BatchJob, BatchJobOutcome>(s.workerEntry ?? defaultWorkerEntry(), jobs, s.jobs, (k, result) => {
     const i = toAnalyse[k];
     const p = planned[i];
     if (result.kind === 'reply' && result.value.status === 'ok') {
@@ -304,6 +322,7 @@ async function runPlanned(
     windText(s.wind),
     s.compass ? `compass profile ${path.basename(s.compass.file)}` : 'default compass profile',
     s.deviation ? `deviation card from ${path.basename(s.deviation.file)}` : 'no deviation card',
+    ...(s.toleranceDeg !== undefined ? [`roll-out tolerance ±${s.toleranceDeg}°`] : []),
   ].join('; ');
   const overview: BatchOverview = {
     generatedAtUtc: ctx.now.toISOString(),

@@ -1,8 +1,8 @@
-// Aircraft and pilot tags from a side file beside a log: `<log file name>.tags.json` (or `<log base>.tags.json`).
+// Side files beside a log: aircraft and pilot tags (`<log>.tags.json`) and the turn plan (`<log>.plan.csv`).
 import { promises as fsp } from 'node:fs';
 import path from 'node:path';
 import { InputError } from '../errors.js';
-import { TAGS_SUFFIX } from './findLogs.js';
+import { PLAN_SUFFIX, TAGS_SUFFIX } from './findLogs.js';
 
 export interface FlightTags {
   aircraft?: string;
@@ -14,14 +14,31 @@ export interface FlightTags {
 /** Longest tag kept [characters]: a name, never a document. */
 export const MAX_TAG_CHARS = 200;
 
-/** The side-file paths looked for, in order: `lesson.gpx.tags.json`, then `lesson.tags.json`. */
-export function tagFileCandidates(logPath: string): string[] {
+/** Side-file paths of a log with `suffix`, in the order looked for: `lesson.gpx<suffix>`, then `lesson<suffix>`. */
+export function sideFileCandidates(logPath: string, suffix: string): string[] {
   const dir = path.dirname(logPath);
   const name = path.basename(logPath);
   const base = name.replace(/\.[^.]*$/, '');
-  const c = [path.join(dir, name + TAGS_SUFFIX)];
-  if (base !== name) c.push(path.join(dir, base + TAGS_SUFFIX));
+  const c = [path.join(dir, name + suffix)];
+  if (base !== name) c.push(path.join(dir, base + suffix));
   return c;
+}
+
+/**
+ * The turn plan beside a log (`lesson.gpx.plan.csv` or `lesson.plan.csv`, as for `report --plan`), as text.
+ * @returns undefined when there is none
+ * @throws InputError naming the plan file when it exists but cannot be read
+ */
+export async function readPlanSideFile(logPath: string): Promise<{ file: string; text: string } | undefined> {
+  for (const file of sideFileCandidates(logPath, PLAN_SUFFIX)) {
+    try {
+      return { file, text: await fsp.readFile(file, 'utf8') };
+    } catch (err) {
+      if ((err as NodeJS.ErrnoException).code === 'ENOENT') continue;
+      throw new InputError(file, `cannot read the plan file: ${(err as NodeJS.ErrnoException).code ?? (err as Error).message}`);
+    }
+  }
+  return undefined;
 }
 
 /**
@@ -31,7 +48,7 @@ export function tagFileCandidates(logPath: string): string[] {
  * @throws InputError naming the side file when it is not such an object or a tag is over 200 characters
  */
 export async function readTags(logPath: string): Promise<FlightTags> {
-  for (const file of tagFileCandidates(logPath)) {
+  for (const file of sideFileCandidates(logPath, TAGS_SUFFIX)) {
     let text: string;
     try {
       text = await fsp.readFile(file, 'utf8');
