@@ -32,7 +32,8 @@ main { max-width:1180px; margin:0 auto; padding:0 20px 40px; }
 section { margin-top:24px; border-top:1px solid var(--rule); }
 h2 { font-size:20px; margin:10px 0 6px; } h3 { font-size:15.5px; margin:16px 0 4px; }
 table { border-collapse:collapse; width:100%; font-size:13.5px; margin:6px 0 10px; }
-th, td { text-align:left; padding:4px 8px; border-bottom:1px solid var(--rule); vertical-align:top; overflow-wrap:anywhere; }
+th, td { text-align:left; padding:4px 8px; border-bottom:1px solid var(--rule); vertical-align:top; }
+td { overflow-wrap:break-word; } td a { overflow-wrap:anywhere; }
 th { font-weight:600; background:#f1efe7; } td.num { text-align:right; font-variant-numeric:tabular-nums; white-space:nowrap; }
 .ok { color:var(--ok); font-weight:600; } .failed { color:var(--bad); font-weight:600; } .err { color:var(--bad); font-size:12.5px; }
 .note { color:var(--soft); font-size:12.5px; }
