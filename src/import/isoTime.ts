@@ -7,8 +7,25 @@ const ISO_DATE_TIME =
 
 const TIME_OF_DAY = /^\s*(\d{1,2}):(\d{2})(?::(\d{2})(?:[.,](\d+))?)?\s*$/;
 
+const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+/** Days in a month of the proleptic Gregorian calendar (month 1–12). */
 function daysInMonth(year: number, month: number): number {
-  return new Date(Date.UTC(year, month, 0)).getUTCDate();
+  const leap = (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
+  return month === 2 && leap ? 29 : DAYS_IN_MONTH[month - 1];
+}
+
+/**
+ * Days from 1970-01-01 to a proleptic Gregorian date (month 1–12), without a Date object: the
+ * days_from_civil algorithm of H. Hinnant, "chrono-Compatible Low-Level Date Algorithms" (2013).
+ */
+function daysFromCivil(year: number, month: number, day: number): number {
+  const y = month <= 2 ? year - 1 : year;
+  const era = Math.floor(y / 400);
+  const yoe = y - era * 400;
+  const doy = Math.floor((153 * (month + (month > 2 ? -3 : 9)) + 2) / 5) + day - 1;
+  const doe = yoe * 365 + Math.floor(yoe / 4) - Math.floor(yoe / 100) + doy;
+  return era * 146097 + doe - 719468;
 }
 
 /**
@@ -38,7 +55,7 @@ export function parseIsoDateTime(text: string, noZoneOffsetMin = 0): number {
     offsetMin = (m[9] === '-' ? -1 : 1) * (oh * 60 + om);
   }
   const fraction = m[7] !== undefined ? Number(`0.${m[7]}`) : 0;
-  const whole = Date.UTC(year, month - 1, day, hour, minute, second) / 1000;
+  const whole = daysFromCivil(year, month, day) * 86400 + hour * 3600 + minute * 60 + second;
   return whole + fraction - offsetMin * 60;
 }
 
@@ -71,5 +88,5 @@ export function parseIsoDate(text: string): number {
   const month = +m[2];
   const day = +m[3];
   if (month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month)) return NaN;
-  return Date.UTC(year, month - 1, day) / 1000;
+  return daysFromCivil(year, month, day) * 86400;
 }
