@@ -8,7 +8,7 @@ import type { LogFormat } from '../log/flightLog.js';
 import { loadReportAssets } from '../report/loadReportAssets.js';
 import { buildReportModel } from '../report/reportModel.js';
 import { renderReport, type ReportAssets } from '../report/renderReport.js';
-import { samplesCsv } from '../report/samplesCsv.js';
+import { samplesCsvChunks } from '../report/samplesCsv.js';
 import { summaryJson } from '../report/summaryJson.js';
 import type { PendingOutput } from '../report/writeAtomic.js';
 
@@ -67,7 +67,7 @@ export async function debriefOneFlight(req: DebriefRequest, settings: DebriefSet
   const assets = settings.assets ?? (await loadReportAssets());
   const html = renderReport(buildReportModel(analysis, { generatedAt: settings.generatedAt ?? new Date() }), assets);
   const outputs: PendingOutput[] = [{ path: req.htmlPath, content: html }];
-  if (req.samplesPath !== undefined) outputs.push({ path: req.samplesPath, content: samplesCsv(analysis) });
+  if (req.samplesPath !== undefined) outputs.push({ path: req.samplesPath, content: samplesCsvChunks(analysis) });
   if (req.jsonPath !== undefined) outputs.push({ path: req.jsonPath, content: summaryJson(analysis) });
   return { analysis, outputs };
 }

@@ -85,10 +85,18 @@ function windFromDeg(windN: number, windE: number): number {
  * Angles in [0, 360) except signed quantities; heading_mag = heading_true − variation (east +).
  */
 export function samplesCsv(a: FlightAnalysis): string {
+  return Array.from(samplesCsvChunks(a)).join('');
+}
+
+/**
+ * The samples CSV as text chunks of `rowsPerChunk` rows each (the header first), for writing long flights
+ * without holding the whole file as one string. Joined, the chunks are exactly samplesCsv(a).
+ */
+export function* samplesCsvChunks(a: FlightAnalysis, rowsPerChunk = 20_000): Generator<string> {
   const { state: s, field: f, compass: c } = a;
-  const out: string[] = new Array(s.n + 1);
-  out[0] = [...SAMPLES_CONTRACT_COLUMNS, ...SAMPLES_EXTRA_COLUMNS].join(',');
+  yield [...SAMPLES_CONTRACT_COLUMNS, ...SAMPLES_EXTRA_COLUMNS].join(',') + '\n';
   const iso = isoTimeWriter();
+  let out: string[] = [];
   const sigma = s.headingSigmaDeg;
   // One reused row array: no array per sample (this writer runs over every sample of long flights).
   const row: string[] = new Array(27);
@@ -121,7 +129,15 @@ export function samplesCsv(a: FlightAnalysis): string {
     row[24] = fixed(sigma ? sigma[i] : NaN, 2);
     row[25] = angle360(windFromDeg(s.windN[i], s.windE[i]), 1);
     row[26] = fixed(Math.hypot(s.windN[i], s.windE[i]) / KT_MS, 1);
-    out[i + 1] = row.join(',');
+    out.push(row.join(','));
+    if (out.length === rowsPerChunk) {
+      out.push('');
+      yield out.join('\n');
+      out = [];
+    }
   }
-  return out.join('\n') + '\n';
+  if (out.length > 0) {
+    out.push('');
+    yield out.join('\n');
+  }
 }

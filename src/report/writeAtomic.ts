@@ -2,9 +2,23 @@
 import { promises as fsp } from 'node:fs';
 import path from 'node:path';
 
+/** A file to write: its whole text, or its text as chunks (written one after another, for long files). */
 export interface PendingOutput {
   path: string;
-  content: string;
+  content: string | Iterable<string>;
+}
+
+async function writeContent(file: string, content: string | Iterable<string>): Promise<void> {
+  if (typeof content === 'string') {
+    await fsp.writeFile(file, content, 'utf8');
+    return;
+  }
+  const fh = await fsp.open(file, 'w');
+  try {
+    for (const chunk of content) await fh.write(chunk, null, 'utf8');
+  } finally {
+    await fh.close();
+  }
 }
 
 /**
@@ -23,7 +37,7 @@ export async function writeOutputsAtomically(outputs: PendingOutput[], protected
       await fsp.mkdir(path.dirname(path.resolve(o.path)), { recursive: true });
       const tmp = `${o.path}.${process.pid}.${Date.now()}.tmp`;
       temps.push(tmp);
-      await fsp.writeFile(tmp, o.content, 'utf8');
+      await writeContent(tmp, o.content);
     }
   } catch (err) {
     await Promise.all(temps.map((t) => fsp.rm(t, { force: true })));
