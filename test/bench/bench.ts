@@ -67,6 +67,7 @@ async function main(): Promise<void> {
 
   // Whole runs, each in a fresh process, interleaved so that machine load affects both alike.
   const parse: number[] = [];
+  const parseTyped: number[] = [];
   const report: number[] = [];
   let rss = 0;
   let parseRss = 0;
@@ -74,15 +75,29 @@ async function main(): Promise<void> {
     const p = child('parse', csvPath, workDir);
     parse.push(p.ms);
     parseRss = Math.max(parseRss, p.maxRssMb);
+    parseTyped.push(child('parse-typed', csvPath, workDir).ms);
     const r = child('report', csvPath, workDir);
     report.push(r.ms);
     rss = Math.max(rss, r.maxRssMb);
   }
   const ratio = median(report) / median(parse);
-  console.log(`whole runs (median of ${REPEATS}, fresh process each):`);
-  console.log(`  papaparse parse (baseline)  ${median(parse).toFixed(0)} ms, peak RSS ${parseRss.toFixed(0)} MB`);
-  console.log(`  report run                  ${median(report).toFixed(0)} ms, peak RSS ${rss.toFixed(0)} MB`);
-  console.log(`  RATIO report / parse        ${ratio.toFixed(2)}×`);
+  console.log(`whole runs (median of ${REPEATS}, fresh process each; times inside the process, after module loading):`);
+  console.log(`  papaparse parse, rows of strings (baseline)   ${median(parse).toFixed(0)} ms, peak RSS ${parseRss.toFixed(0)} MB`);
+  console.log(`  papaparse parse, header + dynamicTyping        ${median(parseTyped).toFixed(0)} ms`);
+  console.log(`  report run (HTML + samples CSV + summary)      ${median(report).toFixed(0)} ms, peak RSS ${rss.toFixed(0)} MB`);
+  console.log(`  RATIO report / parse                           ${ratio.toFixed(2)}×  (vs typed parse ${(median(report) / median(parseTyped)).toFixed(2)}×)`);
+
+  // A million samples (about 28 hours at 10 Hz): peak memory of the whole report run.
+  if (process.env.BENCH_SKIP_MILLION !== '1') {
+    const bigPath = path.join(workDir, 'flight-1m-10hz.csv');
+    if (!existsSync(bigPath)) {
+      const big = simulateFlight(benchFlight(1_000_000 / 36_000, 10));
+      writeFileSync(bigPath, writeCsv(toFlightLog(big, { posSigmaM: 2, altSigmaM: 3, seed: 2027, file: 'flight-1m-10hz.csv', format: 'csv' }), { altUnit: 'ft' }));
+    }
+    const bp = child('parse', bigPath, workDir);
+    const br = child('report', bigPath, workDir);
+    console.log(`1,000,000 samples (${(statSync(bigPath).size / 1e6).toFixed(0)} MB CSV): parse ${bp.ms.toFixed(0)} ms; report ${br.ms.toFixed(0)} ms, ratio ${(br.ms / bp.ms).toFixed(2)}×, peak RSS ${br.maxRssMb.toFixed(0)} MB`);
+  }
 
   // Time until every chart is drawn, in Debian's chromium, where it is installed.
   const measurePath = path.join(here, '..', 'browser', 'measureReport.js');
@@ -94,6 +109,10 @@ async function main(): Promise<void> {
   } else {
     console.log('report in chromium: skipped (no /usr/bin/chromium)');
   }
+
+  // Batch speed-up from worker threads: N flights with --jobs 1 against --jobs 2 (a ratio, never asserted).
+  const { benchBatchSpeedup } = await import('../batch/batchBench.js');
+  await benchBatchSpeedup(workDir);
 }
 
 main().catch((e) => {

@@ -12,6 +12,11 @@ async function main(): Promise<void> {
     const text = readFileSync(file, 'utf8');
     const parsed = Papa.parse<string[]>(text, { skipEmptyLines: true });
     rows = parsed.data.length;
+  } else if (mode === 'parse-typed') {
+    // The same parse as a script that wants numbers would do it: a header, one object per row, numbers typed.
+    const text = readFileSync(file, 'utf8');
+    const parsed = Papa.parse<Record<string, unknown>>(text, { header: true, dynamicTyping: true, skipEmptyLines: true });
+    rows = parsed.data.length;
   } else if (mode === 'report') {
     let err = '';
     const code = await run(
