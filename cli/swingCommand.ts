@@ -12,8 +12,9 @@ function hdg(x: number): string {
 }
 
 
+/** A signed coefficient, sign always shown, right-aligned in `w` characters. */
 function pad(x: number, w: number, d = 1): string {
-  return (x >= 0 ? '+' : '') + x.toFixed(d).padStart(w);
+  return `${x >= 0 ? '+' : '−'}${Math.abs(x).toFixed(d)}`.padStart(w);
 }
 
 export async function swingCommand(args: string[], io: CliIo): Promise<number> {
