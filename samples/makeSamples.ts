@@ -1,8 +1,9 @@
 // Writes the committed demo logs under samples/ from the invented scenarios in src/synth/scenarios.ts.
 // Run: npm run samples (builds, then node dist/samples/makeSamples.js). Deterministic: same files every run.
-import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { packageRoot } from '../src/util/packageRoot.js';
+import { studentLesson, STUDENT_SAMPLE } from '../src/synth/studentLesson.js';
 import { toFlightLog } from '../src/synth/gpsNoise.js';
 import { SAMPLE_SPECS, SCENARIO_VARIATION_DEG } from '../src/synth/scenarios.js';
 import { simulateFlight } from '../src/synth/simulateFlight.js';
@@ -10,19 +11,8 @@ import { writeCsv } from '../src/synth/writeCsv.js';
 import { writeGpx } from '../src/synth/writeGpx.js';
 import { writePlanCsv } from '../src/synth/writePlanCsv.js';
 
-/** The folder holding package.json, found by walking up from this module (works from src and from dist). */
-function repoRoot(): string {
-  let dir = dirname(fileURLToPath(import.meta.url));
-  for (;;) {
-    if (existsSync(join(dir, 'package.json'))) return dir;
-    const up = dirname(dir);
-    if (up === dir) throw new Error('makeSamples: no package.json above ' + fileURLToPath(import.meta.url));
-    dir = up;
-  }
-}
-
 function main(): void {
-  const outDir = join(repoRoot(), 'samples');
+  const outDir = join(packageRoot(import.meta.url), 'samples');
   mkdirSync(outDir, { recursive: true });
   for (const spec of SAMPLE_SPECS) {
     const truth = simulateFlight(spec.script());
@@ -36,6 +26,11 @@ function main(): void {
       console.log('samples/circuit-practice.plan.csv: turn plan');
     }
   }
+  const student = studentLesson();
+  const studentLog = toFlightLog(student.truth, { ...STUDENT_SAMPLE.noise, file: STUDENT_SAMPLE.file, format: 'gpx' });
+  writeFileSync(join(outDir, STUDENT_SAMPLE.file), writeGpx(studentLog));
+  writeFileSync(join(outDir, STUDENT_SAMPLE.planFile), student.planCsv);
+  console.log(`samples/${STUDENT_SAMPLE.file}: ${student.truth.n} samples, flown by a scripted student; plan beside it`);
 }
 
 main();

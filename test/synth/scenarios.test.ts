@@ -12,6 +12,9 @@ import { toFlightLog } from '../../src/synth/gpsNoise.js';
 import { writeGpx } from '../../src/synth/writeGpx.js';
 import { writeCsv } from '../../src/synth/writeCsv.js';
 import { writePlanCsv } from '../../src/synth/writePlanCsv.js';
+import { studentLesson, STUDENT_SAMPLE } from '../../src/synth/studentLesson.js';
+import { parseGpx } from '../../src/import/gpx.js';
+import { analyseFlight } from '../../src/analyseFlight.js';
 
 const SAMPLES = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'samples');
 const KT = 1852 / 3600;
@@ -34,6 +37,29 @@ describe('committed samples', () => {
       }
     });
   }
+});
+
+describe('the student lesson sample', () => {
+  const student = studentLesson();
+
+  it(`samples/${STUDENT_SAMPLE.file} and its plan are exactly what the scripted student makes (regenerate: npm run samples)`, () => {
+    const log = toFlightLog(student.truth, { ...STUDENT_SAMPLE.noise, file: STUDENT_SAMPLE.file, format: 'gpx' });
+    expect(writeGpx(log) === readFileSync(join(SAMPLES, STUDENT_SAMPLE.file), 'utf8')).toBe(true);
+    expect(student.planCsv === readFileSync(join(SAMPLES, STUDENT_SAMPLE.planFile), 'utf8')).toBe(true);
+  });
+
+  it('shows the northern-hemisphere pattern of rolling out on the reading: overshoot onto north, undershoot onto south (FAA-H-8083-15B ch. 7, UNOS), and the debrief grades it so', () => {
+    const text = readFileSync(join(SAMPLES, STUDENT_SAMPLE.file), 'utf8');
+    const a = analyseFlight(parseGpx(text, STUDENT_SAMPLE.file), { debrief: { planCsvText: readFileSync(join(SAMPLES, STUDENT_SAMPLE.planFile), 'utf8') } });
+    const turns = a.analysis.turns;
+    expect(turns).toHaveLength(8);
+    for (const t of turns) {
+      const past = (t.direction === 'right' ? 1 : -1) * t.rolloutErrorDeg; // + = overshoot in the turn direction
+      if (t.targetMagDeg === 0) expect(past).toBeGreaterThan(20);
+      if (t.targetMagDeg === 180) expect(past).toBeLessThan(-20);
+      if (t.targetMagDeg === 0 || t.targetMagDeg === 180) expect(t.withinTolerance).toBe(false);
+    }
+  });
 });
 
 describe('scenarios', () => {
