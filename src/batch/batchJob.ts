@@ -1,7 +1,7 @@
 // One batch flight as a worker does it: the shared debrief steps, the outputs written whole, the facts sent back.
 import { InputError, OptionError, ParseError } from '../errors.js';
 import type { CompassProfile } from '../compass/compassProfile.js';
-import { deviationAtDeg, type SmithCoefficients } from '../deviation/smithCoefficients.js';
+import type { SmithCoefficients } from '../deviation/smithCoefficients.js';
 import type { ReportAssets } from '../report/renderReport.js';
 import { writeOutputsAtomically } from '../report/writeAtomic.js';
 import type { WindOption } from '../state/windOption.js';
@@ -61,13 +61,15 @@ export async function runBatchJob(job: BatchJob, assets: ReportAssets): Promise<
   const t0 = performance.now();
   try {
     const card = job.deviation;
+    // smithCoefficients pulls in mathjs (about a second to load): only when a card is applied.
+    const deviationAtDeg = card ? (await import('../deviation/smithCoefficients.js')).deviationAtDeg : undefined;
     const { analysis, outputs } = await debriefOneFlight(
       { logPath: job.logPath, aircraft: job.aircraft, pilot: job.pilot, htmlPath: job.htmlPath, samplesPath: job.samplesPath, jsonPath: job.jsonPath },
       {
         analyse: {
           wind: job.wind,
           compass: job.compass,
-          deviation: card ? (compassDeg: number) => deviationAtDeg(card, compassDeg) : undefined,
+          deviation: card && deviationAtDeg ? (compassDeg: number) => deviationAtDeg(card, compassDeg) : undefined,
           debrief: {
             ...(job.toleranceDeg !== undefined ? { toleranceDeg: job.toleranceDeg } : {}),
             ...(job.plan ? { planCsvText: job.plan.text } : {}),
