@@ -10,7 +10,7 @@ import { writeOutputsAtomically } from '../report/writeAtomic.js';
 import { checkWindOption, type WindOption } from '../state/windOption.js';
 import { packageRoot } from '../util/packageRoot.js';
 import type { BatchJob, BatchJobOutcome } from './batchJob.js';
-import type { BatchOverview, OverviewFlight, RunState } from './batchOverview.js';
+import type { BatchOverview, OverviewFlight } from './batchOverview.js';
 import { fileSha256, optionsSha256 } from './contentKey.js';
 import { CATALOGUE_FILE, findLogs, type FoundLog, type SkippedPath } from './findLogs.js';
 import { openCatalogue, type CatalogueRow, type FailureKind, type FlightCatalogue } from './flightCatalogue.js';
@@ -303,7 +303,12 @@ async function runPlanned(
       finish(i, rowFor(p, result.value.facts, { status: 'ok', error: '', errorKind: '', reportBase: p.base }));
       return;
     }
-    const failure = result.kind === 'crash' ? { error: `${p.found.path}: ${result.message}`, errorKind: 'worker' as const } : { error: result.value.status === 'failed' ? result.value.error : '', errorKind: result.value.status === 'failed' ? result.value.errorKind : ('internal' as const) };
+    const failure: { error: string; errorKind: FailureKind } =
+      result.kind === 'crash'
+        ? { error: `${p.found.path}: ${result.message}`, errorKind: 'worker' }
+        : result.value.status === 'failed'
+          ? { error: result.value.error, errorKind: result.value.errorKind }
+          : { error: `${p.found.path}: no result`, errorKind: 'internal' };
     stale.push(i);
     finish(i, rowFor(p, emptyFacts(p.tags), { status: 'failed', ...failure, reportBase: '' }));
   });
@@ -348,7 +353,7 @@ async function runPlanned(
     ok,
     failed: list.length - ok,
     analysed: list.filter((f) => f.run === 'analysed').length,
-    unchanged: list.filter((f) => f.run === ('unchanged' satisfies RunState)).length,
+    unchanged: list.filter((f) => f.run === 'unchanged').length,
     overviewPath,
     csvPath,
     cataloguePath: catalogue.file,
