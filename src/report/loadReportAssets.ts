@@ -1,4 +1,5 @@
 // loadReportAssets: reads the report template files and the chart library from disk (I/O edge).
+import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { join } from 'node:path';
@@ -34,5 +35,6 @@ export function loadReportAssets(templateDir: string = join(packageRoot(), 'repo
     css: readText(join(templateDir, 'report.css')),
     js: readText(join(templateDir, 'report.js')),
     plotlyJs: readText(plotlyPath),
+    sha256Base64: (text: string) => createHash('sha256').update(text, 'utf8').digest('base64'),
   };
 }

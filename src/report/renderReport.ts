@@ -19,6 +19,11 @@ export interface ReportAssets {
   js: string;
   /** plotly.js-dist-min's plotly.min.js */
   plotlyJs: string;
+  /**
+   * Optional: a SHA-256 (base64) of text, e.g. node:crypto's, used instead of the pure-TypeScript one for the
+   * CSP hashes of the inline scripts. Same result; the native one is about 20× faster on the 4.6 MB chart library.
+   */
+  sha256Base64?: (text: string) => string;
 }
 
 /** The part of the model the page script needs (the rest is already in the HTML). */
@@ -43,6 +48,11 @@ export interface ReportPageData {
  * hash sources), styles inline, images only from data: and blob: URLs (in-page memory, used by
  * Plotly's "download plot as PNG", never the network).
  */
+/** CSP hash source of an inline script, with the assets' own SHA-256 where they carry one. */
+function scriptHash(text: string, assets: ReportAssets): string {
+  return assets.sha256Base64 ? `'sha256-${assets.sha256Base64(text)}'` : cspScriptHash(text);
+}
+
 export function reportCsp(scriptHashes: string[]): string {
   return [
     "default-src 'none'",
@@ -129,7 +139,7 @@ export function renderReport(model: ReportModel, assets: ReportAssets): string {
       ? `Every sample is drawn (${fmtCount(d.samples)}).`
       : `Drawn: ${fmtCount(d.drawn)} of ${fmtCount(d.samples)} samples (${d.method}). The samples CSV holds every sample.`;
   return fillTemplate(assets.html, {
-    CSP: escapeHtml(reportCsp([cspScriptHash(plotlyJs), cspScriptHash(pageJs)])),
+    CSP: escapeHtml(reportCsp([scriptHash(plotlyJs, assets), scriptHash(pageJs, assets)])),
     TITLE: escapeHtml(model.title),
     CSS: assets.css.replace(/<\/style/gi, '<\\/style'),
     SUBTITLE: escapeHtml(subtitle),

@@ -182,3 +182,11 @@ describe('fillTemplate and loadReportAssets', () => {
     expect(() => loadReportAssets('/nonexistent/report-template')).toThrow(/report\.html/);
   });
 });
+
+describe('renderReport: the CSP hashes', () => {
+  it('are the same with the native SHA-256 of the assets and with the pure-TypeScript one (FIPS 180-4 both)', () => {
+    const { sha256Base64: _native, ...pureAssets } = assets;
+    expect(assets.sha256Base64).toBeTypeOf('function');
+    expect(renderReport(hostileModel, pureAssets)).toBe(html);
+  });
+});
