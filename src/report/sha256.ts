@@ -11,7 +11,7 @@ const K = new Uint32Array([
 ]);
 
 /**
- * SHA-256 digest of bytes. Transcription of FIPS PUB 180-4 (2015) §6.2.2 (message schedule W, working
+ * SHA-256 digest of bytes. A line-by-line rendering of FIPS PUB 180-4 (2015) §6.2.2 (message schedule W, working
  * variables a…h, constants K of §4.2.2, initial hash of §5.3.3), padding as in §5.1.1.
  */
 export function sha256(bytes: Uint8Array): Uint8Array {

@@ -165,7 +165,7 @@ function tryRead(bytes: Uint8Array, format: LogFormat | undefined): 'read' | 're
 describe('fuzzing: every reader fails only with ParseError', () => {
   for (const format of Object.keys(SEEDS) as LogFormat[]) {
     it(`${format}: ${RUNS} mutated inputs, no other exception`, () => {
-      tryRead(SEEDS[format], format); // the seed itself reads
+      tryRead(SEEDS[format], format); // the unmutated input itself reads
       expect(parseLogBytes(SEEDS[format], 'seed', { format }).t.length).toBeGreaterThan(1);
       const outcomes = { read: 0, refused: 0 };
       fc.assert(

@@ -91,7 +91,7 @@ describe('fieldAtPoint against NOAA NCEI WMM2025_TestValues.txt (100 points, 202
     expect(Math.abs(p.fNt - f)).toBeLessThanOrEqual(0.05 + 1e-6);
   });
 
-  it('gives the file\'s X, Y, Z where independent transcriptions print them to 1e-6 nT', () => {
+  it('gives the file\'s X, Y, Z where independent copies print them to 1e-6 nT', () => {
     // Source: rows of the same NOAA file as embedded (6 decimals) in public Dart and C++ test code.
     // The file's own X differs from an exact evaluation by up to 7e-4 nT (noted by an independent
     // implementation), so 0.005 nT is the honest tolerance.
