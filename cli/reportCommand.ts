@@ -157,11 +157,19 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
   if (!values.quiet) {
     const c = analysis.compass;
     let iMax = -1;
-    for (let i = 0; i < c.n; i++) if (Number.isFinite(c.errorDeg[i]) && (iMax < 0 || Math.abs(c.errorDeg[i]) > Math.abs(c.errorDeg[iMax]))) iMax = i;
+    let nUnreliable = 0;
+    for (let i = 0; i < c.n; i++) {
+      if (c.unreliable[i]) {
+        nUnreliable++;
+        continue;
+      }
+      if (Number.isFinite(c.errorDeg[i]) && (iMax < 0 || Math.abs(c.errorDeg[i]) > Math.abs(c.errorDeg[iMax]))) iMax = i;
+    }
     const w = analysis.state.winds[0];
     const windText = w ? `${Math.round(w.fromDegTrue).toString().padStart(3, '0')}/${Math.round(w.speedMs / KT_MS)} kt (${w.source})` : 'calm';
-    const worst = iMax >= 0 ? `largest compass error ${Math.abs(c.errorDeg[iMax]).toFixed(0)}° at ${new Date(analysis.state.t[iMax] * 1000).toISOString().slice(11, 19)}Z` : 'no compass reading';
-    io.stdout(`${path.basename(logPath)}: ${analysis.state.n} samples, wind ${windText}, ${worst}, ${analysis.warnings.length} warning(s)\n`);
+    const worst = iMax >= 0 ? `largest compass error ${Math.abs(c.errorDeg[iMax]).toFixed(0)}° at ${new Date(analysis.state.t[iMax] * 1000).toISOString().slice(11, 19)}Z` : 'no reliable compass reading';
+    const flagged = nUnreliable > 0 ? ` (${nUnreliable} sample(s) where the card is unreliable left out)` : '';
+    io.stdout(`${path.basename(logPath)}: ${analysis.state.n} samples, wind ${windText}, ${worst}${flagged}, ${analysis.warnings.length} warning(s)\n`);
     const cal = analysis.calibration;
     if (cal) {
       io.stdout(`  compass fitted to ${cal.used} observed reading(s): RMS ${cal.initialRmsDeg.toFixed(1)}° → ${cal.rmsDeg.toFixed(1)}°${cal.converged ? '' : ' (did not converge: treat with care)'}\n`);

@@ -37,3 +37,4 @@ export const COMPASS_FLAG_ON_STOP = 2; // card axis clamped on its tilt stop (st
 export const COMPASS_FLAG_BLACKOUT = 4; // WMM blackout zone, H < 2000 nT
 export const COMPASS_FLAG_CAUTION = 8; // WMM caution zone, 2000 ≤ H < 6000 nT (unreliable only if the profile says so)
 export const COMPASS_FLAG_NO_INPUT = 16; // an input of this sample was missing: every output is NaN
+export const COMPASS_FLAG_SWINGING = 32; // simulated card more than SWINGING_CARD_DEG from its equilibrium: swinging round after losing its directive force

@@ -31,7 +31,7 @@ import type { FieldAlongPath } from '../magnetic/fieldAlongPath.js';
 import type { LogWarning } from '../log/flightLog.js';
 import { OptionError } from '../errors.js';
 import {
-  COMPASS_FLAG_BLACKOUT, COMPASS_FLAG_CAUTION, COMPASS_FLAG_NO_INPUT, COMPASS_FLAG_ON_STOP, COMPASS_FLAG_WEAK_DIRECTIVE,
+  COMPASS_FLAG_BLACKOUT, COMPASS_FLAG_CAUTION, COMPASS_FLAG_NO_INPUT, COMPASS_FLAG_ON_STOP, COMPASS_FLAG_SWINGING, COMPASS_FLAG_WEAK_DIRECTIVE,
   type CompassTrace,
 } from './compassTrace.js';
 import { validateCompassProfile, type CompassProfile } from './compassProfile.js';
@@ -46,6 +46,14 @@ const RAD = 180 / Math.PI;
 // here so the compass stage does not load the field model at run time.
 const ZONE_CAUTION = 1;
 const ZONE_BLACKOUT = 2;
+
+/**
+ * Farther than this from its static equilibrium [deg] the simulated card is not lagging but swinging round,
+ * as after the card lost its directive force near reversal (PHYSICS.md §1.4; PHAK: "erratic and
+ * unpredictable"): such samples are flagged unreliable. Ordinary lag and swirl in rate-one turns stay well
+ * under 30° in our model [derived estimate].
+ */
+export const SWINGING_CARD_DEG = 60;
 
 /** Options of the integration. maxStepS: largest sub-step [s], (0, 0.05]; default 0.05 (20 Hz). */
 export interface SimulateCompassOptions {
@@ -253,8 +261,9 @@ export function simulateCompass(
     let fl = flags[i];
     if (nodeOnStop) fl |= COMPASS_FLAG_ON_STOP;
     if (!(kc.directiveRatio >= profile.unreliableDirectiveRatio)) fl |= COMPASS_FLAG_WEAK_DIRECTIVE;
+    if (Math.abs(wrap180(dyn - staticDeg[i])) > SWINGING_CARD_DEG) fl |= COMPASS_FLAG_SWINGING;
     flags[i] = fl;
-    unreliable[i] = (fl & (COMPASS_FLAG_WEAK_DIRECTIVE | COMPASS_FLAG_ON_STOP | COMPASS_FLAG_BLACKOUT | COMPASS_FLAG_NO_INPUT)) !== 0
+    unreliable[i] = (fl & (COMPASS_FLAG_WEAK_DIRECTIVE | COMPASS_FLAG_ON_STOP | COMPASS_FLAG_BLACKOUT | COMPASS_FLAG_NO_INPUT | COMPASS_FLAG_SWINGING)) !== 0
       || (profile.cautionZoneUnreliable && (fl & COMPASS_FLAG_CAUTION) !== 0) ? 1 : 0;
   };
 

@@ -101,6 +101,8 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
   let worstZone = 0;
   for (let i = 0; i < f.n; i++) if (f.zone[i] > worstZone) worstZone = f.zone[i];
   const iMax = argMaxAbs(c.errorDeg);
+  const reliableError = c.errorDeg.map((e, i) => (c.unreliable[i] ? NaN : e));
+  const iRel = argMaxAbs(reliableError);
   return {
     schema_version: SUMMARY_SCHEMA_VERSION,
     source: { file: a.log.source.file, format: a.log.source.format, meta: { ...a.log.source.meta } },
@@ -141,6 +143,8 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
       rms_error_deg: rmsOf(c.errorDeg),
       max_abs_error_deg: iMax >= 0 ? round(Math.abs(c.errorDeg[iMax]), 1) : null,
       max_error_utc: iMax >= 0 ? utc(s.t[iMax]) : null,
+      max_abs_error_reliable_deg: iRel >= 0 ? round(Math.abs(c.errorDeg[iRel]), 1) : null,
+      max_reliable_error_utc: iRel >= 0 ? utc(s.t[iRel]) : null,
       unreliable_samples: c.unreliable.reduce((k, v) => k + (v ? 1 : 0), 0),
       deviation_sign_convention: 'deviation = magnetic − compass, easterly +; compass + deviation = magnetic',
     },
