@@ -66,7 +66,10 @@ export function buildReportModel(a: FlightAnalysis, opts: ReportModelOptions = {
   const first = firstFiniteFix(s.lat, s.lon);
   const plan = localPlanNm(s.lat, s.lon, s.lat[first] ?? 0, s.lon[first] ?? 0);
 
-  const peakRows = largestErrorPeaks(s.t, c.errorDeg, 5, 60);
+  // The headline errors are those of a card that still reads: samples flagged unreliable (card swinging,
+  // on its stop, without directive force, weak-field zone) are left out of them and counted separately.
+  const reliableErrorDeg = c.errorDeg.map((e, i) => (c.unreliable[i] !== 0 ? NaN : e));
+  const peakRows = largestErrorPeaks(s.t, reliableErrorDeg, 5, 60);
   const forced: number[] = [...peakRows];
   for (let i = 0; i < n; i++) if (i === 0 || i === n - 1 || s.segment[i] !== s.segment[i - 1] || s.segment[i] !== s.segment[i + 1]) forced.push(i);
   for (const e of [...an.turns, ...an.episodes, ...an.excursions]) forced.push(e.startIndex, e.endIndex);
@@ -224,7 +227,7 @@ function buildGlance(
     if (Number.isFinite(e)) {
       sumSq += e * e;
       nErr++;
-      if (Math.abs(e) > maxAbsErrorDeg) maxAbsErrorDeg = Math.abs(e);
+      if (c.unreliable[i] === 0 && Math.abs(e) > maxAbsErrorDeg) maxAbsErrorDeg = Math.abs(e);
     }
     if (c.unreliable[i] !== 0) unreliable++;
     if (f.zone[i] === ZONE_CAUTION) caution++;

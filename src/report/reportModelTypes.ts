@@ -59,6 +59,7 @@ export interface ReportGlance {
   blackoutZoneSamples: number;
   /** Share of samples flagged unreliable (card on stop, weak directive force, weak field) [0..1]. */
   unreliableShare: number;
+  /** Largest |compass error| where the card is not flagged unreliable [deg]. */
   maxAbsErrorDeg: number;
   /** Root-mean-square compass error over the flight [deg]. */
   rmsErrorDeg: number;

@@ -89,7 +89,7 @@ export function glanceSection(m: ReportModel): string {
   ];
 
   const headline = [
-    fact('Largest compass error', `${fmtNumber(g.maxAbsErrorDeg, 0, '°')}${g.biggestErrors.length > 0 ? ` at ${fmtUtcTime(g.biggestErrors[0].tUtc)}` : ''}`),
+    fact('Largest compass error (card reliable)', `${fmtNumber(g.maxAbsErrorDeg, 0, '°')}${g.biggestErrors.length > 0 ? ` at ${fmtUtcTime(g.biggestErrors[0].tUtc)}` : ''}`),
     fact('Typical (RMS) error', fmtNumber(g.rmsErrorDeg, 1, '°')),
     fact('Readings flagged unreliable', `${fmtNumber(100 * g.unreliableShare, 1)} % of the flight`),
   ];
