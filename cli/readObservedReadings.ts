@@ -1,6 +1,6 @@
 // --observed FILE: compass readings noted in flight (by the pilot, or read off cockpit video), for the fit
 // of the compass profile. Columns: time_utc (ISO 8601 with Z) and compass_deg. Lines starting with # are comments.
-import { promises as fsp } from 'node:fs';
+import { readSideFileText } from '../src/import/readSideFile.js';
 import Papa from 'papaparse';
 import { InputError } from '../src/errors.js';
 import type { CompassObservations } from '../src/compass/calibrateProfile.js';
@@ -9,12 +9,7 @@ const HINT = 'an observed-readings file has columns time_utc (e.g. 2026-05-04T10
 
 /** Reads the observations; every bad row names the file and line. */
 export async function readObservedReadings(file: string): Promise<CompassObservations> {
-  let text: string;
-  try {
-    text = await fsp.readFile(file, 'utf8');
-  } catch (err) {
-    throw new InputError(file, `cannot read the observed readings: ${(err as NodeJS.ErrnoException).code ?? (err as Error).message}`, { hint: 'check the path' });
-  }
+  const text = await readSideFileText(file, 'observed readings');
   const parsed = Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: 'greedy', comments: '#', transformHeader: (h) => h.trim().toLowerCase() });
   const fields = parsed.meta.fields ?? [];
   if (!fields.includes('time_utc') || !fields.includes('compass_deg')) throw new InputError(file, 'the columns time_utc and compass_deg are needed', { line: 1, hint: HINT });

@@ -1,6 +1,6 @@
 // --wind FILE: a small wind table, by altitude or by time. Columns: alt_ft (or alt_m) or time_utc, and
 // wind as DDD/SS (from, true, knots) or as from_deg + speed_kt. Lines starting with # are comments.
-import { promises as fsp } from 'node:fs';
+import { readSideFileText } from '../src/import/readSideFile.js';
 import Papa from 'papaparse';
 import { FT_M, KT_MS } from '../src/constants.js';
 import { InputError } from '../src/errors.js';
@@ -8,12 +8,7 @@ import type { WindOption, WindTableRow } from '../src/state/windOption.js';
 
 /** Reads a wind table file into a WindOption of kind 'table'. Every problem names the file and line. */
 export async function readWindTable(file: string): Promise<WindOption> {
-  let text: string;
-  try {
-    text = await fsp.readFile(file, 'utf8');
-  } catch (err) {
-    throw new InputError(file, `cannot read the wind table: ${(err as NodeJS.ErrnoException).code ?? (err as Error).message}`, { hint: 'check the path' });
-  }
+  const text = await readSideFileText(file, 'wind table');
   const parsed = Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: 'greedy', comments: '#', transformHeader: (h) => h.trim().toLowerCase() });
   const fields = parsed.meta.fields ?? [];
   const has = (f: string) => fields.includes(f);

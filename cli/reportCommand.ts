@@ -1,6 +1,7 @@
 // `compass-debrief report <log>`: read, analyse, write the debrief (HTML), samples CSV and summary JSON.
 import path from 'node:path';
-import { existsSync, promises as fsp } from 'node:fs';
+import { existsSync } from 'node:fs';
+import { readSideFileText } from '../src/import/readSideFile.js';
 import type { ReadOptions } from '../src/import/readLog.js';
 import { parseColumnMapping } from '../src/import/columnMapping.js';
 import { InputError, ParseError } from '../src/errors.js';
@@ -19,15 +20,6 @@ import { readDeviationFile } from './readDeviationFile.js';
 import { progressReporter } from './progress.js';
 import { readWindTable } from './readWindTable.js';
 import { readObservedReadings } from './readObservedReadings.js';
-
-/** Reads a small text side file (plan); errors name the file. */
-async function readTextFile(file: string, what: string): Promise<string> {
-  try {
-    return await fsp.readFile(file, 'utf8');
-  } catch (err) {
-    throw new InputError(file, `cannot read the ${what} file: ${(err as NodeJS.ErrnoException).code ?? (err as Error).message}`, { hint: 'check the path' });
-  }
-}
 
 /**
  * --excursion START/END: UTC times, either full ISO 8601 (with Z or an offset) or HH:MM[:SS] on the log's
@@ -58,7 +50,7 @@ export function parseExcursion(text: string): NonNullable<AnalyseOptions['excurs
 async function readOptionsFrom(values: { columns?: string; date?: string; 'tz-offset'?: string; 'heading-ref'?: string }): Promise<Omit<ReadOptions, 'format'>> {
   const read: Omit<ReadOptions, 'format'> = {};
   if (values.columns !== undefined) {
-    const text = /[=:]/.test(values.columns) && !existsSync(values.columns) ? values.columns : await readTextFile(values.columns, 'column mapping');
+    const text = /[=:]/.test(values.columns) && !existsSync(values.columns) ? values.columns : await readSideFileText(values.columns, 'column mapping');
     try {
       read.columns = parseColumnMapping(text);
     } catch (err) {
@@ -133,7 +125,7 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
   const wind = windArg.kind === 'file' ? await readWindTable(windArg.path) : windArg;
   const options: Omit<AnalyseOptions, 'onStage'> = { wind, excursion, debrief: {} };
   if (toleranceDeg !== undefined) options.debrief!.toleranceDeg = toleranceDeg;
-  if (values.plan !== undefined) options.debrief!.planCsvText = await readTextFile(values.plan, 'plan');
+  if (values.plan !== undefined) options.debrief!.planCsvText = await readSideFileText(values.plan, 'plan');
   if (values.compass !== undefined) options.compass = await readCompassProfileFile(values.compass);
   if (values.deviation !== undefined) options.deviation = await readDeviationFile(values.deviation);
   if (values.observed !== undefined) options.observed = await readObservedReadings(values.observed);

@@ -1,16 +1,11 @@
 // Reads a compass-swing CSV and fits the card; every problem becomes an InputError naming the file and line.
-import { promises as fsp } from 'node:fs';
+import { readSideFileText } from '../src/import/readSideFile.js';
 import { InputError, ParseError } from '../src/errors.js';
 import { parseSwingRecord, swingReport, type SwingReport } from '../src/deviation/swingRecord.js';
 
 /** Reads and fits a swing file; every problem becomes an InputError naming the file and line. */
 export async function readSwingFile(file: string): Promise<SwingReport> {
-  let text: string;
-  try {
-    text = await fsp.readFile(file, 'utf8');
-  } catch (err) {
-    throw new InputError(file, `cannot read the file: ${(err as NodeJS.ErrnoException).code ?? (err as Error).message}`, { hint: 'check the path' });
-  }
+  const text = await readSideFileText(file, 'swing record');
   try {
     return swingReport(parseSwingRecord(text));
   } catch (err) {

@@ -1,16 +1,11 @@
 // Reads a compass profile side file (JSON) for `report` and `batch`; every problem names the file.
-import { promises as fsp } from 'node:fs';
+import { readSideFileText } from '../import/readSideFile.js';
 import { parseCompassProfile, type CompassProfile } from '../compass/compassProfile.js';
 import { InputError } from '../errors.js';
 
 /** Reads a small JSON side file and names the file in any error. */
 async function readJsonFile(file: string): Promise<unknown> {
-  let text: string;
-  try {
-    text = await fsp.readFile(file, 'utf8');
-  } catch (err) {
-    throw new InputError(file, `cannot read the file: ${(err as NodeJS.ErrnoException).code ?? (err as Error).message}`, { hint: 'check the path' });
-  }
+  const text = await readSideFileText(file, 'compass profile');
   try {
     return JSON.parse(text);
   } catch (err) {

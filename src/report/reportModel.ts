@@ -1,4 +1,5 @@
 // buildReportModel: one FlightAnalysis → the debrief page's content in pilot units, thinned for drawing.
+import { finiteRange } from '../util/finiteRange.js';
 import { FT_M, KT_MS, NM_M } from '../constants.js';
 import { OptionError } from '../errors.js';
 import { wrap360 } from '../geo/angles.js';
@@ -331,17 +332,6 @@ function peakRow(t: Float64Array, tPeak: number, i0: number, i1: number): number
   return best;
 }
 
-function finiteRange(col: Float64Array): { min: number; max: number } {
-  let min = Infinity;
-  let max = -Infinity;
-  for (let i = 0; i < col.length; i++) {
-    const v = col[i];
-    if (!Number.isFinite(v)) continue;
-    if (v < min) min = v;
-    if (v > max) max = v;
-  }
-  return min <= max ? { min, max } : { min: NaN, max: NaN };
-}
 
 /** Median step between consecutive samples of the same segment [s]; NaN with fewer than two. */
 function medianStepS(t: Float64Array, segment: Int32Array): number {

@@ -1,4 +1,5 @@
 // The summary JSON: wind, field, compass extremes, turns, episodes, divergences, excursions, warnings, UTC times.
+import { finiteRange } from '../util/finiteRange.js';
 import { KT_MS } from '../constants.js';
 import { circularMeanDeg, wrap180, wrap360 } from '../geo/angles.js';
 import type { FlightAnalysis } from '../flightAnalysis.js';
@@ -17,17 +18,6 @@ function round(x: number, digits: number): number | null {
   return Math.round(x * k) / k;
 }
 
-function minMax(col: Float64Array): { min: number; max: number } {
-  let min = Infinity;
-  let max = -Infinity;
-  for (let i = 0; i < col.length; i++) {
-    const v = col[i];
-    if (!Number.isFinite(v)) continue;
-    if (v < min) min = v;
-    if (v > max) max = v;
-  }
-  return { min, max };
-}
 
 /** An optional number rounded, or null when absent or not finite. */
 function opt(x: number | undefined, digits: number): number | null {
@@ -96,8 +86,8 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
   const n = s.n;
   const wind = s.winds;
   const primary = representativeWind(wind);
-  const variation = minMax(f.variationDeg);
-  const dip = minMax(f.dipDeg);
+  const variation = finiteRange(f.variationDeg);
+  const dip = finiteRange(f.dipDeg);
   let worstZone = 0;
   for (let i = 0; i < f.n; i++) if (f.zone[i] > worstZone) worstZone = f.zone[i];
   const iMax = argMaxAbs(c.errorDeg);
