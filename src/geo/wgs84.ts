@@ -1,5 +1,6 @@
 // WGS-84 geodetic ↔ ECEF and each point's local north-east-down (NED) frame.
-import { DEG, RAD, WGS84_A_M, WGS84_E2 } from '../constants.js';
+import { DEG, WGS84_A_M, WGS84_E2 } from '../constants.js';
+import { ecefToGeodeticInto, geodeticToEcefInto } from './localFrame.js';
 
 export interface Vec3 {
   x: number;
@@ -7,39 +8,21 @@ export interface Vec3 {
   z: number;
 }
 
-/** Geodetic (lat, lon [deg], ellipsoidal height [m]) to ECEF [m]. Source: NIMA TR8350.2 eq. 4-14. */
+/** Geodetic (lat, lon [deg], ellipsoidal height [m]) to ECEF [m]. Source: NIMA TR8350.2 eq. 4-14 (via geodeticToEcefInto). */
 export function geodeticToEcef(latDeg: number, lonDeg: number, hM: number): Vec3 {
-  const lat = latDeg * DEG;
-  const lon = lonDeg * DEG;
-  const sLat = Math.sin(lat);
-  const cLat = Math.cos(lat);
-  const n = WGS84_A_M / Math.sqrt(1 - WGS84_E2 * sLat * sLat);
-  return {
-    x: (n + hM) * cLat * Math.cos(lon),
-    y: (n + hM) * cLat * Math.sin(lon),
-    z: (n * (1 - WGS84_E2) + hM) * sLat,
-  };
+  const o = new Float64Array(3);
+  geodeticToEcefInto(latDeg, lonDeg, hM, o, 0);
+  return { x: o[0], y: o[1], z: o[2] };
 }
 
 /**
- * ECEF [m] to geodetic (lat, lon [deg], height [m]) by Bowring's iteration (converges to < 1e-9 deg in
- * three steps for aircraft heights). Source: B. R. Bowring, Survey Review 23(181), 1976.
+ * ECEF [m] to geodetic (lat, lon [deg], height [m]) by Bowring's iteration (via ecefToGeodeticInto; below
+ * 1e-11° for aircraft heights). Source: B. R. Bowring, Survey Review 23(181), 1976.
  */
 export function ecefToGeodetic(p: Vec3): { latDeg: number; lonDeg: number; hM: number } {
-  const lon = Math.atan2(p.y, p.x);
-  const r = Math.hypot(p.x, p.y);
-  let lat = Math.atan2(p.z, r * (1 - WGS84_E2));
-  let n = WGS84_A_M;
-  for (let k = 0; k < 5; k++) {
-    const s = Math.sin(lat);
-    n = WGS84_A_M / Math.sqrt(1 - WGS84_E2 * s * s);
-    lat = Math.atan2(p.z + WGS84_E2 * n * s, r);
-  }
-  const s = Math.sin(lat);
-  const c = Math.cos(lat);
-  n = WGS84_A_M / Math.sqrt(1 - WGS84_E2 * s * s);
-  const hM = Math.abs(c) > 1e-9 ? r / c - n : Math.abs(p.z) - n * (1 - WGS84_E2);
-  return { latDeg: lat * RAD, lonDeg: lon * RAD, hM };
+  const o = new Float64Array(3);
+  ecefToGeodeticInto(p.x, p.y, p.z, o, 0);
+  return { latDeg: o[0], lonDeg: o[1], hM: o[2] };
 }
 
 /** Rotates an ECEF vector (difference) into the NED frame at (lat, lon). Source: standard ECEF→NED rotation. */

@@ -36,14 +36,23 @@ describe('ECEF conversions', () => {
           expect(Math.abs(back[0] - lat)).toBeLessThan(1e-9);
           expect(angErr(back[1], lon)).toBeLessThan(1e-9);
           expect(Math.abs(back[2] - h)).toBeLessThan(1e-3);
-          // The allocation-free versions agree with the object versions of wgs84.ts.
-          const p = geodeticToEcef(lat, lon, h);
-          expect(Math.hypot(p.x - out[0], p.y - out[1], p.z - out[2])).toBeLessThan(1e-6);
-          const g = ecefToGeodetic(p);
-          expect(Math.abs(g.latDeg - back[0])).toBeLessThan(1e-9);
         }
       }
     }
+  });
+});
+
+describe('geodeticToEcef on the axes of the ellipsoid', () => {
+  it('puts (0°, 0°, 0 m) at (a, 0, 0) and the north pole at (0, 0, b), b = a(1 − f) = 6 356 752.3142 m (NIMA TR8350.2 table 3.1, 3.3)', () => {
+    const e = geodeticToEcef(0, 0, 0);
+    expect(e.x).toBeCloseTo(6378137.0, 6);
+    expect(Math.abs(e.y) + Math.abs(e.z)).toBeLessThan(1e-6);
+    const n = geodeticToEcef(90, 0, 0);
+    expect(Math.hypot(n.x, n.y)).toBeLessThan(1e-6);
+    expect(n.z).toBeCloseTo(6356752.3142, 3);
+    const g = ecefToGeodetic({ x: 0, y: 0, z: 6356752.3142 + 1000 });
+    expect(g.latDeg).toBeCloseTo(90, 9);
+    expect(g.hM).toBeCloseTo(1000, 3);
   });
 });
 
