@@ -33,7 +33,11 @@ export interface StateOptions {
   vSigmaM?: number;
   /** 1-sigma of logged ground velocity per axis [m/s], 0.01..10. Default 0.3 (Doppler 0.05–0.2, PHYSICS.md §6, with margin). */
   velSigmaMs?: number;
-  /** Jerk PSD of the horizontal axes [m²/s⁵], 0.001..1000. Default 1 (PHYSICS.md §6: 1–10 for light aircraft; 1 chosen on synthetic turns, see test/state). */
+  /**
+   * Jerk PSD of the horizontal axes [m²/s⁵], 0.001..1000. Default 0.5 (PHYSICS.md §6 suggests 1–10 for light
+   * aircraft; on the five end-to-end lessons, 2 m noise at 1 Hz, 0.5 takes the steady-flight bank error from
+   * 1.3° to 1.1° (95th percentile) for 4.4° → 5.5° during the 2 s roll-ins and roll-outs) [derived on synthetic flights].
+   */
   jerkPsdH?: number;
   /** Jerk PSD of the vertical axis [m²/s⁵], 0.001..1000. Default 0.5 [practice]. */
   jerkPsdV?: number;
@@ -67,7 +71,7 @@ export function reconstructState(log: FlightLog, opts: StateOptions = {}): Fligh
     hSigmaM: checkRange('hSigmaM', opts.hSigmaM, 0.1, 100, 3, 'm'),
     vSigmaM: checkRange('vSigmaM', opts.vSigmaM, 0.1, 200, 5, 'm'),
     velSigmaMs: checkRange('velSigmaMs', opts.velSigmaMs, 0.01, 10, 0.3, 'm/s'),
-    jerkPsdH: checkRange('jerkPsdH', opts.jerkPsdH, 0.001, 1000, 1, 'm²/s⁵'),
+    jerkPsdH: checkRange('jerkPsdH', opts.jerkPsdH, 0.001, 1000, 0.5, 'm²/s⁵'),
     jerkPsdV: checkRange('jerkPsdV', opts.jerkPsdV, 0.001, 1000, 0.5, 'm²/s⁵'),
     useLogVelocity: opts.useLogVelocity ?? true,
     gate: opts.gate ?? true,
