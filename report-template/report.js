@@ -180,6 +180,35 @@
   }
 
   // ---- timeline ------------------------------------------------------------------------------
+  /**
+   * The 95 % band (±2σ) of the simulated reading from the heading's uncertainty: one closed polygon per run
+   * of points without a segment break or a wrap through north (upper edge forward, lower edge back).
+   */
+  function compassBandXY() {
+    var x = [], y = [];
+    var start = 0;
+    function flush(end) {
+      var k, any = false;
+      for (k = start; k < end; k++) if (S.compassDeg[k] !== null && S.compassSigmaDeg[k] !== null) { any = true; break; }
+      if (!any) return;
+      for (k = start; k < end; k++) {
+        if (S.compassDeg[k] === null || S.compassSigmaDeg[k] === null) continue;
+        x.push(tMs[k]); y.push(S.compassDeg[k] + 2 * S.compassSigmaDeg[k]);
+      }
+      for (k = end - 1; k >= start; k--) {
+        if (S.compassDeg[k] === null || S.compassSigmaDeg[k] === null) continue;
+        x.push(tMs[k]); y.push(S.compassDeg[k] - 2 * S.compassSigmaDeg[k]);
+      }
+      x.push(null); y.push(null);
+    }
+    for (var i = 1; i <= n; i++) {
+      var brk = i === n || S.seg[i] !== S.seg[i - 1] ||
+        (S.compassDeg[i] !== null && S.compassDeg[i - 1] !== null && Math.abs(S.compassDeg[i] - S.compassDeg[i - 1]) > 180);
+      if (brk) { flush(i); start = i; }
+    }
+    return { x: x, y: y };
+  }
+
   function timelineFigure() {
     function tr(values, isDir, props) {
       var xy = lineXY(values, isDir);
@@ -188,7 +217,10 @@
       return t;
     }
     var hdgHover = '%{y:03.0f}°';
+    var band = compassBandXY();
     var traces = [
+      { type: 'scatter', mode: 'lines', x: band.x, y: band.y, fill: 'toself', fillcolor: 'rgba(213,94,0,0.13)', line: { width: 0 },
+        name: 'Compass, 95 % band (heading uncertainty)', hoverinfo: 'skip' },
       tr(S.trackTrueDeg, true, { name: 'True track', line: { color: OI.black, width: 1.2, dash: 'dot' }, hovertemplate: hdgHover }),
       tr(S.headingTrueDeg, true, { name: 'True heading', line: { color: OI.sky, width: 1.6, dash: 'dash' }, hovertemplate: hdgHover }),
       tr(S.headingMagDeg, true, { name: 'Magnetic heading', line: { color: OI.blue, width: 2.6 }, hovertemplate: hdgHover }),
@@ -409,6 +441,12 @@
     if (n === 0) { window.__reportReady = performance.now(); return; }
     fail(new Error('the chart library did not load'));
   }
+  /** The first hovered point that carries a sample row (bands and markers carry none). */
+  function firstRowPoint(ev) {
+    var pts = (ev && ev.points) || [];
+    for (var k = 0; k < pts.length; k++) if (typeof pts[k].customdata === 'number') return pts[k];
+    return null;
+  }
   performance.mark('before-figures');
   var pf = planFigure();
   var tf = timelineFigure();
@@ -417,14 +455,14 @@
     Plotly.newPlot(planDiv, pf.traces, pf.layout, CONFIG).then(function () {
       plan = pf; performance.mark('plan-drawn');
       planDiv.on('plotly_hover', function (ev) {
-        var p = ev.points && ev.points[0];
+        var p = firstRowPoint(ev);
         if (p && typeof p.customdata === 'number' && !hoverLocked) { stopPlay(); setMoment(p.customdata, 'plan'); }
       });
     }),
     Plotly.newPlot(tlDiv, tf.traces, tf.layout, CONFIG).then(function () {
       timelineDrawn = true; performance.mark('timeline-drawn');
       tlDiv.on('plotly_hover', function (ev) {
-        var p = ev.points && ev.points[0];
+        var p = firstRowPoint(ev);
         if (p && typeof p.customdata === 'number' && !hoverLocked) { stopPlay(); setMoment(p.customdata, 'timeline'); }
       });
       tlDiv.on('plotly_relayout', function () {

@@ -95,6 +95,7 @@ export function buildReportModel(a: FlightAnalysis, opts: ReportModelOptions = {
     headingMagDeg: compactDirectionAtRows(headingMagDeg, rows, 1),
     compassStaticDeg: compactDirectionAtRows(c.staticDeg, rows, 1),
     compassDeg: compactDirectionAtRows(c.readingDeg, rows, 1),
+    compassSigmaDeg: s.headingSigmaDeg ? compactAtRows(s.headingSigmaDeg, rows, 2) : Array.from(rows, () => null),
     errorDeg: compactAtRows(c.errorDeg, rows, 1),
     bankDeg: compactAtRows(s.bankDeg, rows, 1),
     accelLongKtS: compactAtRows(s.accelLongMs2, rows, 2, 1 / KT_MS),

@@ -90,6 +90,11 @@ export interface ReportSeries {
   headingMagDeg: (number | null)[];
   compassStaticDeg: (number | null)[];
   compassDeg: (number | null)[];
+  /**
+   * 1-sigma of the simulated reading carried from the heading's uncertainty (wind and velocity sigma) [deg],
+   * taken one to one (the reading follows the heading at first order); null where unknown.
+   */
+  compassSigmaDeg: (number | null)[];
   errorDeg: (number | null)[];
   bankDeg: (number | null)[];
   accelLongKtS: (number | null)[];

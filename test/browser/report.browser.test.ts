@@ -97,15 +97,15 @@ describe.skipIf(!available)('the debrief page in headless Chromium', () => {
     expect(plan.svg).toBeGreaterThan(0);
     expect(plan.drawnTraces).toBeGreaterThanOrEqual(11); // 11 error bands at least
     expect(timeline.svg).toBeGreaterThan(0);
-    expect(timeline.dataTraces).toBe(8); // track, 2 headings, 2 compass readings, error, bank, accel
-    expect(timeline.drawnTraces).toBe(8);
+    expect(timeline.dataTraces).toBe(9); // compass band, track, 2 headings, 2 compass readings, error, bank, accel
+    expect(timeline.drawnTraces).toBe(9);
     // Every timeline trace drew a line of many segments (Plotly's path "d" holds one "L" per vertex kept).
     const segments = await page.evaluate(() =>
       [...document.querySelectorAll('#timeline-plot .scatterlayer .trace')].map((tr) =>
-        [...tr.querySelectorAll('path.js-line')].reduce((n, p) => n + ((p.getAttribute('d') ?? '').match(/L/g) ?? []).length, 0),
+        [...tr.querySelectorAll('path.js-line, path.js-fill')].reduce((n, p) => n + ((p.getAttribute('d') ?? '').match(/L/g) ?? []).length, 0),
       ),
     );
-    expect(segments).toHaveLength(8);
+    expect(segments).toHaveLength(9);
     for (const count of segments) expect(count).toBeGreaterThan(10); // Plotly merges collinear runs, so flat lines keep few
   });
 

@@ -234,7 +234,7 @@ export function syntheticFlight(opts: SyntheticOptions): FlightAnalysis {
     health: { recordsRead: n + 22, samplesKept: n, duplicateTimes: 2, outOfOrder: 0, positionSpikes: 1, invalidValues: 20, gaps: 1, truncated: false },
     state: {
       n, t, lat, lon, altM, velN, velE, velD, accN, accE, accD, accSigmaMs2: accSigma, gsMs: gs, trackDegTrue: track,
-      windN, windE, tasMs: tas, headingDegTrue: hdgTrue, bankDeg: bank, pitchDeg: pitch, turnRateDps: rate, accelLongMs2: accLong,
+      windN, windE, tasMs: tas, headingDegTrue: hdgTrue, headingSigmaDeg: new Float64Array(n).fill(1.5), bankDeg: bank, pitchDeg: pitch, turnRateDps: rate, accelLongMs2: accLong,
       segment, logRow,
       winds: [{ fromDegTrue: WIND.fromDeg, speedMs: WIND.speedKt * KT_MS, source: 'given', t0: NaN, t1: NaN, altM: NaN, sigmaMs: NaN, tasMs: NaN, arcDeg: NaN }],
       warnings: [],
