@@ -3,6 +3,8 @@ import type { CliIo } from './cliIo.js';
 
 export interface Progress {
   stage(name: string): void;
+  /** Share of the current stage done, 0..1 (shown on a terminal once the stage has run a second). */
+  fraction(f: number): void;
   done(): void;
 }
 
@@ -23,6 +25,10 @@ export function progressReporter(io: CliIo, quiet: boolean): Progress {
       current = name;
       started = Date.now();
       if (io.isTty) io.stderr(`${name}…`);
+    },
+    fraction(f: number) {
+      if (quiet || !io.isTty || !current || Date.now() - started < 1000) return;
+      io.stderr(`\r\x1b[2K${current}… ${Math.round(Math.max(0, Math.min(1, f)) * 100)} %`);
     },
     done() {
       if (quiet) return;

@@ -120,6 +120,7 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
   const read = await readOptionsFrom(values);
   const outHtml = values.out ?? path.join(io.cwd, `${path.basename(logPath).replace(/\.[^.]+$/, '')}.debrief.html`);
   const progress = progressReporter(io, Boolean(values.quiet));
+  read.onProgress = (f) => progress.fraction(f);
 
   // Side files first (they are small; a bad one fails before the log is read), then the shared steps.
   const wind = windArg.kind === 'file' ? await readWindTable(windArg.path) : windArg;

@@ -68,6 +68,12 @@ function rmsOf(col: Float64Array): number | null {
   return k > 0 ? round(Math.sqrt(s2 / k), 1) : null;
 }
 
+/** RMS and largest |value| of one error-split column [deg]. */
+function splitStats(col: Float64Array): { rms_deg: number | null; max_abs_deg: number | null } {
+  const i = argMaxAbs(col);
+  return { rms_deg: rmsOf(col), max_abs_deg: i >= 0 ? round(Math.abs(col[i]), 1) : null };
+}
+
 /** Drift angle (track − heading, right +) along the flight: median, largest each way. */
 function driftSummary(s: FlightAnalysis['state']): { median_deg: number | null; min_deg: number | null; max_deg: number | null } {
   const d: number[] = [];
@@ -137,6 +143,13 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
       max_reliable_error_utc: iRel >= 0 ? utc(s.t[iRel]) : null,
       unreliable_samples: c.unreliable.reduce((k, v) => k + (v ? 1 : 0), 0),
       deviation_sign_convention: 'deviation = magnetic − compass, easterly +; compass + deviation = magnetic',
+      // The error split over the flight (samples CSV err_* columns): RMS and largest |value| of each part.
+      split: {
+        dip_turn: splitStats(c.errDipTurnDeg),
+        dip_accel: splitStats(c.errDipAccelDeg),
+        lag_swirl: splitStats(c.errLagSwirlDeg),
+        deviation: splitStats(c.errDeviationDeg),
+      },
     },
     calibration: a.calibration
       ? {

@@ -70,6 +70,19 @@ describe('summary JSON', () => {
     expect((summary.compass as { max_abs_error_deg: number }).max_abs_error_deg).toBeCloseTo(worst, 1);
   });
 
+  it('gives the error split per part, whose largest values bound the split columns (samples contract)', () => {
+    const split = (summary.compass as { split: Record<string, { rms_deg: number; max_abs_deg: number }> }).split;
+    const cols = { dip_turn: a.compass.errDipTurnDeg, dip_accel: a.compass.errDipAccelDeg, lag_swirl: a.compass.errLagSwirlDeg, deviation: a.compass.errDeviationDeg };
+    for (const [k, col] of Object.entries(cols)) {
+      let m = 0;
+      for (const v of col) if (Number.isFinite(v)) m = Math.max(m, Math.abs(v));
+      expect(split[k].max_abs_deg).toBeCloseTo(m, 1);
+      expect(split[k].rms_deg).toBeLessThanOrEqual(split[k].max_abs_deg + 0.05);
+    }
+    expect(split.deviation.max_abs_deg).toBe(0); // no deviation card applied
+    expect(split.dip_turn.max_abs_deg).toBeGreaterThan(10); // standard-rate turns at dip ~68
+  });
+
   it('carries log text as plain data (JSON escaping only; the report escapes it for HTML)', () => {
     expect((summary.source as { meta: { name: string } }).meta.name).toBe('Lesson <b>one</b>');
   });
