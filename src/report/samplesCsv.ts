@@ -2,6 +2,7 @@
 import { KT_MS } from '../constants.js';
 import { wrap360, wrap180 } from '../geo/angles.js';
 import type { FlightAnalysis } from '../flightAnalysis.js';
+import { AsciiRowWriter } from './asciiRowWriter.js';
 
 /** Contract columns, exactly these names in this order (DESIGN.md "Samples CSV"). */
 export const SAMPLES_CONTRACT_COLUMNS = [
@@ -38,26 +39,24 @@ export const SAMPLES_EXTRA_COLUMNS = [
   'wind_kt',
 ] as const;
 
-/** x with `digits` decimals (toFixed), '' for a missing value. */
-const fixed = (x: number, digits: number): string => (Number.isFinite(x) ? x.toFixed(digits) : '');
-
-function angle360(x: number, digits: number): string {
-  if (!Number.isFinite(x)) return '';
-  const w = wrap360(x);
-  // Rounding 359.9996 to "360.000" would leave [0, 360): fold it back to zero.
-  const text = w.toFixed(digits);
-  return Number(text) >= 360 ? (0).toFixed(digits) : text;
+/** An angle wrapped to [0, 360) with `digits` decimals; a value that would round to 360 is written as 0. */
+function angle360(w: AsciiRowWriter, x: number, digits: number): void {
+  if (!Number.isFinite(x)) return;
+  const v = wrap360(x);
+  w.fixed(Math.round(v * 10 ** digits) >= 360 * 10 ** digits ? 0 : v, digits);
 }
 
-function angle180(x: number, digits: number): string {
-  return Number.isFinite(x) ? wrap180(x).toFixed(digits) : '';
+/** A signed angle wrapped to (−180, 180] with `digits` decimals. */
+function angle180(w: AsciiRowWriter, x: number, digits: number): void {
+  if (Number.isFinite(x)) w.fixed(wrap180(x), digits);
 }
 
-/** ISO 8601 UTC with milliseconds; the date part is made once per UTC day. */
-function isoTimeWriter(): (tS: number) => string {
+/** ISO 8601 UTC with milliseconds, e.g. 2026-05-04T10:11:12.500Z; the date part is made once per UTC day. */
+function isoTimeWriter(): (w: AsciiRowWriter, tS: number) => void {
   let day = NaN;
   let prefix = '';
-  return (tS: number) => {
+  return (w: AsciiRowWriter, tS: number) => {
+    if (!Number.isFinite(tS)) return;
     const ms = Math.round(tS * 1000);
     const d = Math.floor(ms / 86_400_000);
     if (d !== day) {
@@ -70,8 +69,15 @@ function isoTimeWriter(): (tS: number) => string {
     const m = Math.floor(rem / 60_000);
     rem -= m * 60_000;
     const sec = Math.floor(rem / 1000);
-    const milli = rem - sec * 1000;
-    return `${prefix}${h < 10 ? '0' : ''}${h}:${m < 10 ? '0' : ''}${m}:${sec < 10 ? '0' : ''}${sec}.${milli < 10 ? '00' : milli < 100 ? '0' : ''}${milli}Z`;
+    w.ascii(prefix);
+    w.uint(h, 2);
+    w.ascii(':');
+    w.uint(m, 2);
+    w.ascii(':');
+    w.uint(sec, 2);
+    w.ascii('.');
+    w.uint(rem - sec * 1000, 3);
+    w.ascii('Z');
   };
 }
 
@@ -85,59 +91,52 @@ function windFromDeg(windN: number, windE: number): number {
  * Angles in [0, 360) except signed quantities; heading_mag = heading_true − variation (east +).
  */
 export function samplesCsv(a: FlightAnalysis): string {
-  return Array.from(samplesCsvChunks(a)).join('');
+  const decoder = new TextDecoder();
+  return Array.from(samplesCsvChunks(a), (c) => decoder.decode(c)).join('');
 }
 
 /**
- * The samples CSV as text chunks of `rowsPerChunk` rows each (the header first), for writing long flights
- * without holding the whole file as one string. Joined, the chunks are exactly samplesCsv(a).
+ * The samples CSV as byte chunks of about `chunkBytes` (ASCII, the header first), for writing long flights
+ * without holding the file as one string or making a string per value. Joined, the chunks are samplesCsv(a).
  */
-export function* samplesCsvChunks(a: FlightAnalysis, rowsPerChunk = 20_000): Generator<string> {
+export function* samplesCsvChunks(a: FlightAnalysis, chunkBytes = 1 << 20): Generator<Uint8Array> {
   const { state: s, field: f, compass: c } = a;
-  yield [...SAMPLES_CONTRACT_COLUMNS, ...SAMPLES_EXTRA_COLUMNS].join(',') + '\n';
+  const w = new AsciiRowWriter(Math.max(chunkBytes, 2048));
+  w.ascii([...SAMPLES_CONTRACT_COLUMNS, ...SAMPLES_EXTRA_COLUMNS].join(','));
+  w.newline();
   const iso = isoTimeWriter();
-  let out: string[] = [];
   const sigma = s.headingSigmaDeg;
-  // One reused row array: no array per sample (this writer runs over every sample of long flights).
-  const row: string[] = new Array(27);
   for (let i = 0; i < s.n; i++) {
     const headingMag = s.headingDegTrue[i] - f.variationDeg[i];
-    row[0] = iso(s.t[i]);
-    row[1] = fixed(s.lat[i], 7);
-    row[2] = fixed(s.lon[i], 7);
-    row[3] = fixed(s.altM[i], 1);
-    row[4] = fixed(s.gsMs[i] / KT_MS, 2);
-    row[5] = angle360(s.trackDegTrue[i], 2);
-    row[6] = angle360(s.headingDegTrue[i], 2);
-    row[7] = angle360(headingMag, 2);
-    row[8] = angle180(f.variationDeg[i], 3);
-    row[9] = fixed(f.dipDeg[i], 3);
-    row[10] = fixed(s.bankDeg[i], 2);
-    row[11] = fixed(s.turnRateDps[i], 3);
-    row[12] = fixed(s.accelLongMs2[i], 3);
-    row[13] = angle360(c.staticDeg[i], 2);
-    row[14] = angle360(c.readingDeg[i], 2);
-    row[15] = angle180(c.errorDeg[i], 2);
-    row[16] = fixed(c.errDipTurnDeg[i], 2);
-    row[17] = fixed(c.errDipAccelDeg[i], 2);
-    row[18] = fixed(c.errLagSwirlDeg[i], 2);
-    row[19] = fixed(c.errDeviationDeg[i], 2);
-    row[20] = fixed(c.tiltDeg[i], 2);
-    row[21] = String(c.unreliable[i]);
-    row[22] = String(s.segment[i]);
-    row[23] = angle180(s.trackDegTrue[i] - s.headingDegTrue[i], 2);
-    row[24] = fixed(sigma ? sigma[i] : NaN, 2);
-    row[25] = angle360(windFromDeg(s.windN[i], s.windE[i]), 1);
-    row[26] = fixed(Math.hypot(s.windN[i], s.windE[i]) / KT_MS, 1);
-    out.push(row.join(','));
-    if (out.length === rowsPerChunk) {
-      out.push('');
-      yield out.join('\n');
-      out = [];
-    }
+    iso(w, s.t[i]); w.comma();
+    w.fixed(s.lat[i], 7); w.comma();
+    w.fixed(s.lon[i], 7); w.comma();
+    w.fixed(s.altM[i], 1); w.comma();
+    w.fixed(s.gsMs[i] / KT_MS, 2); w.comma();
+    angle360(w, s.trackDegTrue[i], 2); w.comma();
+    angle360(w, s.headingDegTrue[i], 2); w.comma();
+    angle360(w, headingMag, 2); w.comma();
+    angle180(w, f.variationDeg[i], 3); w.comma();
+    w.fixed(f.dipDeg[i], 3); w.comma();
+    w.fixed(s.bankDeg[i], 2); w.comma();
+    w.fixed(s.turnRateDps[i], 3); w.comma();
+    w.fixed(s.accelLongMs2[i], 3); w.comma();
+    angle360(w, c.staticDeg[i], 2); w.comma();
+    angle360(w, c.readingDeg[i], 2); w.comma();
+    angle180(w, c.errorDeg[i], 2); w.comma();
+    w.fixed(c.errDipTurnDeg[i], 2); w.comma();
+    w.fixed(c.errDipAccelDeg[i], 2); w.comma();
+    w.fixed(c.errLagSwirlDeg[i], 2); w.comma();
+    w.fixed(c.errDeviationDeg[i], 2); w.comma();
+    w.fixed(c.tiltDeg[i], 2); w.comma();
+    w.uint(c.unreliable[i]); w.comma();
+    w.uint(s.segment[i]); w.comma();
+    angle180(w, s.trackDegTrue[i] - s.headingDegTrue[i], 2); w.comma();
+    w.fixed(sigma ? sigma[i] : NaN, 2); w.comma();
+    angle360(w, windFromDeg(s.windN[i], s.windE[i]), 1); w.comma();
+    w.fixed(Math.hypot(s.windN[i], s.windE[i]) / KT_MS, 1);
+    w.newline();
+    if (w.nearlyFull()) yield w.take();
   }
-  if (out.length > 0) {
-    out.push('');
-    yield out.join('\n');
-  }
+  yield w.take();
 }

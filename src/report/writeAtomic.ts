@@ -2,20 +2,23 @@
 import { promises as fsp } from 'node:fs';
 import path from 'node:path';
 
-/** A file to write: its whole text, or its text as chunks (written one after another, for long files). */
+/** A file to write: its whole text, or its text or bytes as chunks (written one after another, for long files). */
 export interface PendingOutput {
   path: string;
-  content: string | Iterable<string>;
+  content: string | Iterable<string | Uint8Array>;
 }
 
-async function writeContent(file: string, content: string | Iterable<string>): Promise<void> {
+async function writeContent(file: string, content: PendingOutput['content']): Promise<void> {
   if (typeof content === 'string') {
     await fsp.writeFile(file, content, 'utf8');
     return;
   }
   const fh = await fsp.open(file, 'w');
   try {
-    for (const chunk of content) await fh.write(chunk, null, 'utf8');
+    for (const chunk of content) {
+      if (typeof chunk === 'string') await fh.write(chunk, null, 'utf8');
+      else await fh.write(chunk);
+    }
   } finally {
     await fh.close();
   }

@@ -38,9 +38,26 @@ describe('samples CSV', () => {
     }
   });
 
-  it('gives the same text written in chunks of any size', () => {
-    expect(Array.from(samplesCsvChunks(a, 7)).join('')).toBe(text);
-    expect(Array.from(samplesCsvChunks(a, 900)).join('')).toBe(text);
-    expect(Array.from(samplesCsvChunks(a, 899)).join('')).toBe(text);
+  it('gives the same bytes written in chunks of any size', () => {
+    const joined = (size: number) => Buffer.concat(Array.from(samplesCsvChunks(a, size))).toString('latin1');
+    expect(joined(2048)).toBe(text);
+    expect(joined(4096 + 17)).toBe(text);
+    expect(joined(1 << 22)).toBe(text);
+  });
+
+  it('writes each number as toFixed would (ECMA-262 Number.prototype.toFixed as oracle, away from binary ties)', () => {
+    const cols: Array<[string, Float64Array, number]> = [
+      ['lat_deg', a.state.lat, 7], ['alt_m', a.state.altM, 1], ['bank_deg', a.state.bankDeg, 2], ['dip_deg', a.field.dipDeg, 3],
+      ['turn_rate_dps', a.state.turnRateDps, 3], ['err_lag_swirl_deg', a.compass.errLagSwirlDeg, 2],
+    ];
+    for (const [name, col, d] of cols) {
+      for (let i = 0; i < a.state.n; i += 13) {
+        const v = col[i];
+        if (!Number.isFinite(v)) { expect(rows.data[i][name]).toBe(''); continue; }
+        const scaled = Math.abs(v) * 10 ** d;
+        if (Math.abs(scaled - Math.floor(scaled) - 0.5) < 1e-6) continue;
+        expect(rows.data[i][name]).toBe(v.toFixed(d).replace(/^-(0\.0*)$/, '$1'));
+      }
+    }
   });
 });
