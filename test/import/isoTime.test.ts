@@ -36,3 +36,20 @@ describe('parseIsoDateTime', () => {
     expect(parseIsoDateTime('1969-12-31T23:59:59Z')).toBe(-1);
   });
 });
+
+describe('parseIsoDateTime, the common UTC layout', () => {
+  it('reads fractions exactly as the general path and Number() do (ECMA-262 StringToNumber as oracle)', () => {
+    for (const f of ['1', '25', '123', '999', '000001', '5']) {
+      const got = parseIsoDateTime(`2026-05-04T10:11:12.${f}Z`);
+      expect(got).toBe(Date.UTC(2026, 4, 4, 10, 11, 12) / 1000 + Number(`0.${f}`));
+    }
+  });
+
+  it('refuses what the layout forbids and leaves other forms to the general path', () => {
+    expect(parseIsoDateTime('2026-02-30T10:11:12Z')).toBeNaN();
+    expect(parseIsoDateTime('2026-05-04T24:00:00Z')).toBeNaN();
+    expect(parseIsoDateTime('2026-05-04T10:11:12.Z')).toBeNaN();
+    expect(parseIsoDateTime('2026-05-04t10:11:12z')).toBe(Date.UTC(2026, 4, 4, 10, 11, 12) / 1000);
+    expect(parseIsoDateTime('2026-05-04 10:11:12Z')).toBe(Date.UTC(2026, 4, 4, 10, 11, 12) / 1000);
+  });
+});
