@@ -103,7 +103,10 @@ export function fillTemplate(template: string, values: Record<string, string>): 
  * @throws InputError when the template and the renderer disagree on placeholders
  */
 export function renderReport(model: ReportModel, assets: ReportAssets): string {
-  const plotlyJs = inlineScriptSource(assets.plotlyJs);
+  // V8's explicit compile hint (a magic comment, ignored elsewhere): the chart library runs most of its
+  // functions while it loads, so compiling them eagerly saves a lazy pre-parse (about 0.15–0.2 s in
+  // chromium on the 3-hour flight's page).
+  const plotlyJs = '//# allFunctionsCalledOnLoad\n' + inlineScriptSource(assets.plotlyJs);
   const pageJs = inlineScriptSource(assets.js);
   const labelled = new Set([...model.divergences].sort((a, b) => Math.abs(b.peakErrorDeg) - Math.abs(a.peakErrorDeg)).slice(0, 12));
   const { row: _rows, ...drawnSeries } = model.series;
