@@ -1,5 +1,6 @@
 // `compass-debrief batch <folders or files…> --out-dir DIR`: every log debriefed on worker threads, an
 // overview page and CSV, and a catalogue of the flights; unchanged flights are kept from the last run.
+import { parseFormatOption, readOptionsFrom } from './readOptions.js';
 import os from 'node:os';
 import path from 'node:path';
 import type { SmithCoefficients } from '../src/deviation/smithCoefficients.js';
@@ -63,6 +64,11 @@ export async function batchCommand(args: string[], io: CliIo): Promise<number> {
     aircraft: { type: 'string' },
     pilot: { type: 'string' },
     force: { type: 'boolean' },
+    format: { type: 'string' },
+    columns: { type: 'string' },
+    date: { type: 'string' },
+    'tz-offset': { type: 'string' },
+    'heading-ref': { type: 'string' },
   });
   if (values.help) {
     io.stdout(USAGE.batch);
@@ -93,6 +99,7 @@ export async function batchCommand(args: string[], io: CliIo): Promise<number> {
     aircraft: values.aircraft,
     pilot: values.pilot,
     toleranceDeg,
+    read: { ...(await readOptionsFrom('batch', values)), ...(values.format !== undefined ? { format: parseFormatOption('batch', values.format) } : {}) },
     force: Boolean(values.force),
   };
   if (values.compass !== undefined) settings.compass = { profile: await readCompassProfileFile(resolve(values.compass)), file: values.compass };

@@ -1,12 +1,8 @@
 // `compass-debrief report <log>`: read, analyse, write the debrief (HTML), samples CSV and summary JSON.
 import path from 'node:path';
-import { existsSync } from 'node:fs';
 import { readSideFileText } from '../src/import/readSideFile.js';
-import type { ReadOptions } from '../src/import/readLog.js';
-import { parseColumnMapping } from '../src/import/columnMapping.js';
 import { InputError, ParseError } from '../src/errors.js';
 import type { AnalyseOptions } from '../src/analyseFlight.js';
-import type { LogFormat } from '../src/log/flightLog.js';
 import { writeOutputsAtomically } from '../src/report/writeAtomic.js';
 import { debriefOneFlight } from '../src/batch/debriefOneFlight.js';
 import { readCompassProfileFile } from '../src/batch/readCompassProfileFile.js';
@@ -18,6 +14,7 @@ import { USAGE } from './usage.js';
 import { UsageError } from './usageError.js';
 import { readDeviationFile } from './readDeviationFile.js';
 import { progressReporter } from './progress.js';
+import { parseFormatOption, readOptionsFrom } from './readOptions.js';
 import { readWindTable } from './readWindTable.js';
 import { readObservedReadings } from './readObservedReadings.js';
 
@@ -43,40 +40,6 @@ export function parseExcursion(text: string): NonNullable<AnalyseOptions['excurs
   return { startT: a.t, endT: b.t, timeOfDay: a.timeOfDay };
 }
 
-/**
- * --columns (inline `time=Zeit,lat=Breite` or a mapping file), --date YYYY-MM-DD (logs with times of day
- * only), --tz-offset ±HH:MM or minutes (local times without a zone), --heading-ref true|magnetic.
- */
-async function readOptionsFrom(values: { columns?: string; date?: string; 'tz-offset'?: string; 'heading-ref'?: string }): Promise<Omit<ReadOptions, 'format'>> {
-  const read: Omit<ReadOptions, 'format'> = {};
-  if (values.columns !== undefined) {
-    const text = /[=:]/.test(values.columns) && !existsSync(values.columns) ? values.columns : await readSideFileText(values.columns, 'column mapping');
-    try {
-      read.columns = parseColumnMapping(text);
-    } catch (err) {
-      throw new UsageError('report', `--columns: ${(err as Error).message}`);
-    }
-  }
-  if (values.date !== undefined) {
-    if (!/^\d{4}-\d{2}-\d{2}$/.test(values.date) || !Number.isFinite(Date.parse(`${values.date}T00:00:00Z`))) throw new UsageError('report', `--date ${values.date}: expected YYYY-MM-DD`);
-    read.date = values.date;
-  }
-  const tz = values['tz-offset'];
-  if (tz !== undefined) {
-    const m = /^([+-])(\d{1,2}):?(\d{2})$/.exec(tz.trim());
-    const minutes = m ? (m[1] === '-' ? -1 : 1) * (Number(m[2]) * 60 + Number(m[3])) : Number(tz);
-    if (!(Number.isFinite(minutes) && Math.abs(minutes) <= 14 * 60)) throw new UsageError('report', `--tz-offset ${tz}: expected ±HH:MM east of UTC (e.g. +02:00) or minutes, within ±14 h`);
-    read.tzOffsetMin = minutes;
-  }
-  const ref = values['heading-ref'];
-  if (ref !== undefined) {
-    if (ref !== 'true' && ref !== 'magnetic') throw new UsageError('report', `--heading-ref ${ref}: expected true or magnetic`);
-    read.headingRef = ref;
-  }
-  return read;
-}
-
-const FORMATS: LogFormat[] = ['gpx', 'csv', 'igc', 'nmea', 'fit', 'kml'];
 
 export async function reportCommand(args: string[], io: CliIo): Promise<number> {
   const { values, positionals } = parseCommandLine('report', args, {
@@ -112,12 +75,8 @@ export async function reportCommand(args: string[], io: CliIo): Promise<number> 
     if (!(Number.isFinite(toleranceDeg) && toleranceDeg > 0 && toleranceDeg <= 90)) throw new UsageError('report', `--tolerance ${values.tolerance}: must be a number of degrees above 0 and up to 90`);
   }
   const excursion = values.excursion !== undefined ? parseExcursion(values.excursion) : undefined;
-  let format: LogFormat | undefined;
-  if (values.format !== undefined) {
-    if (!FORMATS.includes(values.format as LogFormat)) throw new UsageError('report', `--format ${values.format}: expected one of ${FORMATS.join(', ')}`);
-    format = values.format as LogFormat;
-  }
-  const read = await readOptionsFrom(values);
+  const format = parseFormatOption('report', values.format);
+  const read = await readOptionsFrom('report', values);
   const outHtml = values.out ?? path.join(io.cwd, `${path.basename(logPath).replace(/\.[^.]+$/, '')}.debrief.html`);
   const progress = progressReporter(io, Boolean(values.quiet));
   read.onProgress = (f) => progress.fraction(f);

@@ -105,6 +105,8 @@ Options:
   --tolerance DEG     roll-out tolerance for grading turns
   --aircraft NAME     aircraft tag for every flight
   --pilot NAME        pilot tag for every flight
+  --format, --columns, --date, --tz-offset, --heading-ref
+                      how to read the logs, as for report (see compass-debrief report --help)
   --force             analyse every flight again, changed or not
   --quiet             print nothing but errors (the failed flights, one line each)
   --debug             print a stack trace on failure

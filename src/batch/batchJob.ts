@@ -1,4 +1,5 @@
 // One batch flight as a worker does it: the shared debrief steps, the outputs written whole, the facts sent back.
+import type { ReadOptions } from '../import/readLog.js';
 import { InputError, OptionError, ParseError } from '../errors.js';
 import type { CompassProfile } from '../compass/compassProfile.js';
 import type { SmithCoefficients } from '../deviation/smithCoefficients.js';
@@ -27,6 +28,8 @@ export interface BatchJob {
   deviation?: SmithCoefficients;
   /** Roll-out tolerance for grading turns [deg]; default that of the debrief analyses. */
   toleranceDeg?: number;
+  /** How to read the log (format, date, zone offset, column map, heading reference). */
+  read?: Omit<ReadOptions, 'onProgress'>;
   /** The turn plan side file (its path for error lines, and its text). */
   plan?: { file: string; text: string };
   /** Files never to overwrite (the log and the side files). */
@@ -64,7 +67,7 @@ export async function runBatchJob(job: BatchJob, assets: ReportAssets): Promise<
     // smithCoefficients pulls in mathjs (about a second to load): only when a card is applied.
     const deviationAtDeg = card ? (await import('../deviation/smithCoefficients.js')).deviationAtDeg : undefined;
     const { analysis, outputs } = await debriefOneFlight(
-      { logPath: job.logPath, aircraft: job.aircraft, pilot: job.pilot, htmlPath: job.htmlPath, samplesPath: job.samplesPath, jsonPath: job.jsonPath },
+      { logPath: job.logPath, format: job.read?.format, read: job.read, aircraft: job.aircraft, pilot: job.pilot, htmlPath: job.htmlPath, samplesPath: job.samplesPath, jsonPath: job.jsonPath },
       {
         analyse: {
           wind: job.wind,

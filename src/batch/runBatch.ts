@@ -1,5 +1,6 @@
 // The batch: find the logs, skip the unchanged ones, debrief the rest on worker threads, catalogue each
 // flight as it finishes (main thread only, one transaction per flight), then write the overview.
+import type { ReadOptions } from '../import/readLog.js';
 import { existsSync, promises as fsp, readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { CompassProfile } from '../compass/compassProfile.js';
@@ -40,6 +41,8 @@ export interface BatchSettings {
   pilot?: string;
   /** Roll-out tolerance for grading turns [deg, > 0 and ≤ 90]; default that of the debrief analyses. */
   toleranceDeg?: number;
+  /** How to read the logs (format, date, time-zone offset, CSV column map, heading reference), for every flight. */
+  read?: BatchReadOptions;
   /** Analyse every flight even when unchanged. */
   force?: boolean;
   /** Progress: called on the main thread. */
@@ -49,6 +52,9 @@ export interface BatchSettings {
   /** The clock (tests). */
   now?: () => Date;
 }
+
+/** The reading options a batch passes to every flight (no progress callback: workers read alone). */
+export type BatchReadOptions = Omit<ReadOptions, 'onProgress'>;
 
 export type BatchEvent =
   | { kind: 'planned'; total: number; toAnalyse: number; unchanged: number; skipped: SkippedPath[] }
@@ -188,6 +194,7 @@ export async function runBatch(s: BatchSettings): Promise<BatchResult> {
       compass: s.compass?.profile ?? null,
       deviation: s.deviation?.coefficients ?? null,
       toleranceDeg: s.toleranceDeg ?? null,
+      read: s.read ?? null,
       aircraft: aircraft ?? null,
       pilot: pilot ?? null,
       plan: plan?.text ?? null,
@@ -290,6 +297,7 @@ async function runPlanned(
       compass: s.compass?.profile,
       deviation: s.deviation?.coefficients,
       toleranceDeg: s.toleranceDeg,
+      read: s.read,
       plan: p.plan,
       protectedPaths: [p.found.absPath, ...ctx.sideInputs, ...(p.tags.file ? [p.tags.file] : []), ...(p.plan ? [p.plan.file] : [])],
       generatedAtUtc: ctx.now.toISOString(),
