@@ -12,13 +12,24 @@
  * @returns row indices, largest |error| first
  */
 export function largestErrorPeaks(tS: Float64Array, errorDeg: Float64Array, count: number, separationS: number): number[] {
-  const order: number[] = [];
-  for (let i = 0; i < errorDeg.length; i++) if (Number.isFinite(errorDeg[i]) && Number.isFinite(tS[i])) order.push(i);
-  order.sort((a, b) => Math.abs(errorDeg[b]) - Math.abs(errorDeg[a]) || a - b);
+  // Same picks as sorting by |error| (ties: earlier row first) and walking down the list, but one scan per
+  // pick: the largest |error| among rows not within separationS of a row already picked.
   const picked: number[] = [];
-  for (const i of order) {
-    if (picked.length >= count) break;
-    if (picked.every((j) => Math.abs(tS[i] - tS[j]) >= separationS)) picked.push(i);
+  while (picked.length < count) {
+    let best = -1;
+    let bestAbs = -1;
+    for (let i = 0; i < errorDeg.length; i++) {
+      const e = Math.abs(errorDeg[i]);
+      if (!(e > bestAbs) || !Number.isFinite(e) || !Number.isFinite(tS[i])) continue;
+      let free = true;
+      for (let k = 0; k < picked.length; k++) if (picked[k] === i || Math.abs(tS[i] - tS[picked[k]]) < separationS) { free = false; break; }
+      if (free) {
+        best = i;
+        bestAbs = e;
+      }
+    }
+    if (best < 0) break;
+    picked.push(best);
   }
   return picked;
 }

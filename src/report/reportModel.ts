@@ -336,11 +336,12 @@ function peakRow(t: Float64Array, tPeak: number, i0: number, i1: number): number
 
 /** Median step between consecutive samples of the same segment [s]; NaN with fewer than two. */
 function medianStepS(t: Float64Array, segment: Int32Array): number {
-  const steps: number[] = [];
-  for (let i = 1; i < t.length; i++) if (segment[i] === segment[i - 1] && Number.isFinite(t[i] - t[i - 1])) steps.push(t[i] - t[i - 1]);
-  if (steps.length === 0) return NaN;
-  steps.sort((x, y) => x - y);
-  return steps[Math.floor(steps.length / 2)];
+  const steps = new Float64Array(Math.max(0, t.length - 1));
+  let k = 0;
+  for (let i = 1; i < t.length; i++) if (segment[i] === segment[i - 1] && Number.isFinite(t[i] - t[i - 1])) steps[k++] = t[i] - t[i - 1];
+  if (k === 0) return NaN;
+  const used = steps.subarray(0, k).sort();
+  return used[Math.floor(k / 2)];
 }
 
 /**
@@ -348,13 +349,15 @@ function medianStepS(t: Float64Array, segment: Int32Array): number {
  * up to 5°, at least 5° (a few reversal spikes must not wash the scale out; they saturate instead).
  */
 function errorColourScaleDeg(errorDeg: Float64Array): number {
-  const abs: number[] = [];
-  for (let i = 0; i < errorDeg.length; i++) if (Number.isFinite(errorDeg[i])) abs.push(Math.abs(errorDeg[i]));
-  if (abs.length === 0) return 5;
-  abs.sort((x, y) => x - y);
-  const p99 = abs[Math.min(abs.length - 1, Math.floor(0.99 * abs.length))];
+  let k = 0;
+  const abs = new Float64Array(errorDeg.length);
+  for (let i = 0; i < errorDeg.length; i++) if (Number.isFinite(errorDeg[i])) abs[k++] = Math.abs(errorDeg[i]);
+  if (k === 0) return 5;
+  abs.subarray(0, k).sort(); // typed-array sort: numeric, no comparator call per pair
+  const p99 = abs[Math.min(k - 1, Math.floor(0.99 * k))];
   return Math.max(5, Math.ceil(p99 / 5) * 5);
 }
+
 
 function baseName(file: string): string {
   const parts = file.split(/[\\/]/);
