@@ -2,7 +2,8 @@
 import { promises as fsp } from 'node:fs';
 import path from 'node:path';
 import { ParseError } from '../errors.js';
-import { DETECT_BYTES, detectFormat } from '../import/detectFormat.js';
+import { detectFormat } from '../import/detectFormat.js';
+import { readHead } from '../import/readLog.js';
 
 /** File name endings taken as logs without looking inside (case-insensitive). Other files are tried by content. */
 export const LOG_EXTENSIONS: readonly string[] = ['.gpx', '.csv', '.igc', '.nmea', '.txt', '.fit', '.kml'];
@@ -35,17 +36,6 @@ export interface FoundInputs {
   logs: FoundLog[];
   /** Files in folders that are not flight logs, folders not searched. */
   skipped: SkippedPath[];
-}
-
-async function readHead(file: string): Promise<Uint8Array> {
-  const fh = await fsp.open(file, 'r');
-  try {
-    const buf = new Uint8Array(DETECT_BYTES);
-    const { bytesRead } = await fh.read(buf, 0, DETECT_BYTES, 0);
-    return buf.subarray(0, bytesRead);
-  } finally {
-    await fh.close();
-  }
 }
 
 /** Whether a file found in a folder is a log: by its extension, else by its first bytes; the reason when not. */

@@ -36,7 +36,8 @@ function ioProblem(file: string, err: unknown): InputError {
   }
 }
 
-async function readHead(path: string): Promise<Uint8Array> {
+/** The first DETECT_BYTES bytes of a file (fewer if it is shorter), for telling its format from the content. */
+export async function readHead(path: string): Promise<Uint8Array> {
   const fh = await fsp.open(path, 'r');
   try {
     const buf = new Uint8Array(DETECT_BYTES);
