@@ -1,10 +1,11 @@
 // Delimited text (CSV and its semicolon/tab/pipe cousins) to a FlightLog, via papaparse, row by row.
 import Papa from 'papaparse';
 import { OptionError, ParseError } from '../errors.js';
-import type { FlightLog, LogWarning } from '../log/flightLog.js';
+import type { FlightLog, LogWarning, OptionalColumn } from '../log/flightLog.js';
 import { LineTally, plural, pushTally } from '../log/logWarnings.js';
 import { planCsvColumns, ROLE_COLUMN, type CsvColumn, type CsvPlan, type CsvRole, type CsvTimeKind } from './csvColumns.js';
 import { detectCsvDialect, type CsvDelimiter, type CsvDialect } from './csvDialect.js';
+import { COMMA, POINT, parseIsoUtcBytes, parsePlainDecimalBytes } from './asciiFields.js';
 import { isoHasZone, parseIsoDate, parseIsoDateTime, parseTimeOfDay } from './isoTime.js';
 import { LogBuilder } from './logBuilder.js';
 import { parseDecimal, parseDecimalComma } from './parseNumber.js';
@@ -84,6 +85,13 @@ export class CsvRowSink {
   private lastRowLine = 0;
   private lastRowAdded = false;
   private truncated = false;
+  /** The optional columns the header has, with the FlightLog column each fills. */
+  private optionalColumns: { col: CsvColumn; name: OptionalColumn }[] = [];
+  private readonly delimiterCode: number;
+  private readonly pointCode: number;
+  /** Start of each field of the line being read in place, and one past the end (reused across lines). */
+  private fieldStarts: Int32Array = new Int32Array(64);
+  private readonly decoder = new TextDecoder('utf-8');
 
   constructor(
     private readonly file: string,
@@ -93,6 +101,8 @@ export class CsvRowSink {
     checkCsvOptions(opts);
     this.parseNum = dialect.decimalComma ? parseDecimalComma : parseDecimal;
     this.optionDateS = opts.date !== undefined ? parseIsoDate(opts.date) : NaN;
+    this.delimiterCode = dialect.delimiter.charCodeAt(0);
+    this.pointCode = dialect.decimalComma ? COMMA : POINT;
   }
 
   /** One parsed row: its fields and the 1-based source line; `syntaxTrouble` when the splitter complained. */
@@ -114,11 +124,86 @@ export class CsvRowSink {
     const lon = this.value(fields, c.lon!, line, false);
     const alt = c.alt ? this.value(fields, c.alt, line, true) : NaN;
     this.rows.addRow(t, lat, lon, alt, line);
-    for (const role of OPTIONAL_ROLES) {
-      const col = c[role];
-      if (col) this.rows.set(ROLE_COLUMN[role]!, this.value(fields, col, line, true));
-    }
+    for (const o of this.optionalColumns) this.rows.set(o.name, this.value(fields, o.col, line, true));
     this.lastRowAdded = true;
+  }
+
+  /**
+   * The same as row() for the line bytes[start, end) (line break excluded) of UTF-8 text without quote
+   * characters, split at the delimiter as papaparse splits such text; the planned columns are read in
+   * place from the bytes, with no string per field. The header line, times of day, rows whose time is not
+   * in the plain form and any field not in the plain form are decoded and go the way of row() or of its
+   * field readers, so the result is the same.
+   */
+  rowInPlace(bytes: Uint8Array, start: number, end: number, line: number): void {
+    if (!this.plan || this.timeKind === 'auto' || this.timeKind === 'time-of-day') {
+      this.row(this.fieldsOf(bytes, start, end), line);
+      return;
+    }
+    this.lastRowAdded = false;
+    if (bytes[start] === 35 /* # */) return;
+    const delimiter = this.delimiterCode;
+    let starts = this.fieldStarts;
+    let n = 0;
+    starts[n++] = start;
+    for (let i = start; i < end; i++) {
+      if (bytes[i] === delimiter) {
+        if (n + 1 >= starts.length) starts = this.growFieldStarts();
+        starts[n++] = i + 1;
+      }
+    }
+    starts[n] = end + 1;
+    // A time read in place means a row that is neither blank nor a comment; any other row (a blank line,
+    // text around the time, a time not in the plain form) goes the general way, which decides.
+    const t = this.timeInPlace(bytes, n);
+    if (t !== t) {
+      this.row(this.fieldsOf(bytes, start, end), line);
+      return;
+    }
+    this.recordsRead++;
+    this.lastRowFields = n;
+    this.lastRowLine = line;
+    const c = this.plan.columns;
+    const lat = this.valueInPlace(bytes, n, c.lat!, line, false);
+    const lon = this.valueInPlace(bytes, n, c.lon!, line, false);
+    const alt = c.alt ? this.valueInPlace(bytes, n, c.alt, line, true) : NaN;
+    this.rows.addRow(t, lat, lon, alt, line);
+    for (const o of this.optionalColumns) this.rows.set(o.name, this.valueInPlace(bytes, n, o.col, line, true));
+    this.lastRowAdded = true;
+  }
+
+  /** The fields of bytes[start, end), decoded, as papaparse splits a line without quotes. */
+  private fieldsOf(bytes: Uint8Array, start: number, end: number): string[] {
+    return this.decoder.decode(bytes.subarray(start, end)).split(this.dialect.delimiter);
+  }
+
+  private growFieldStarts(): Int32Array {
+    const next = new Int32Array(this.fieldStarts.length * 2);
+    next.set(this.fieldStarts);
+    this.fieldStarts = next;
+    return next;
+  }
+
+  /** value() for field `col` of the line being read in place (n fields). */
+  private valueInPlace(bytes: Uint8Array, n: number, col: CsvColumn, line: number, counted: boolean): number {
+    const k = col.index;
+    if (k >= n) return NaN;
+    const a = this.fieldStarts[k];
+    const b = this.fieldStarts[k + 1] - 1;
+    const v = parsePlainDecimalBytes(bytes, a, b, this.pointCode);
+    if (v === v) return v * col.toSi;
+    return this.rawValue(this.decoder.decode(bytes.subarray(a, b)), col, line, counted);
+  }
+
+  /** The time of the line being read in place (n fields) when it is an ISO UTC or Unix time in the plain form; NaN otherwise. */
+  private timeInPlace(bytes: Uint8Array, n: number): number {
+    const k = this.plan!.columns.time!.index;
+    if (k >= n) return NaN;
+    const a = this.fieldStarts[k];
+    const b = this.fieldStarts[k + 1] - 1;
+    if (this.timeKind === 'iso') return parseIsoUtcBytes(bytes, a, b);
+    const v = parsePlainDecimalBytes(bytes, a, b, this.pointCode);
+    return this.timeKind === 'epoch-ms' ? v / 1e3 : this.timeKind === 'epoch-us' ? v / 1e6 : v;
   }
 
   private header(fields: string[], line: number): void {
@@ -133,11 +218,20 @@ export class CsvRowSink {
     this.headerFields = fields.length;
     this.timeKind = this.plan.timeKind;
     this.warnings.push(...this.plan.warnings);
+    const columns = this.plan.columns;
+    this.optionalColumns = OPTIONAL_ROLES.flatMap((role) => {
+      const col = columns[role];
+      return col ? [{ col, name: ROLE_COLUMN[role]! }] : [];
+    });
   }
 
   /** A numeric field in SI; empty → NaN silently, unreadable → NaN and counted (when `counted`). */
   private value(fields: string[], col: CsvColumn, line: number, counted: boolean): number {
-    const raw = fields[col.index];
+    return this.rawValue(fields[col.index], col, line, counted);
+  }
+
+  /** value() of the text of one field (undefined: the row has no such field). */
+  private rawValue(raw: string | undefined, col: CsvColumn, line: number, counted: boolean): number {
     if (raw === undefined || raw.trim() === '') return NaN;
     const v = this.parseNum(raw);
     if (Number.isNaN(v) && counted) {
@@ -284,17 +378,25 @@ export function csvDialectFor(sample: string, opts: CsvOptions): CsvDialect {
   };
 }
 
+/** A copy of part of a byte array (a Buffer's own slice would share the memory). */
+function copyOf(bytes: Uint8Array, start: number, end = bytes.length): Uint8Array {
+  return Uint8Array.prototype.slice.call(bytes, start, end);
+}
+
 /**
- * Feeds a delimited text to a CsvRowSink in chunks of any size (a file read as a stream): each chunk is
- * cut after its last line break and the complete lines go through papaparse; the rest waits for the next
- * chunk. Line numbers continue across chunks. Limitation: a quoted field holding a line break that
- * straddles two chunks is split (such fields do not occur in flight logs; common practice).
+ * Feeds the UTF-8 bytes of a delimited text to a CsvRowSink in chunks of any size (a file read as a
+ * stream): each chunk is cut after its last line break and the complete lines are read; the rest waits
+ * for the next chunk. Lines of a text without quote characters are read in place (CsvRowSink.rowInPlace);
+ * text with quotes is decoded and goes through papaparse. Line numbers continue across chunks.
+ * Limitation: a quoted field holding a line break that straddles two chunks is split (such fields do not
+ * occur in flight logs; common practice).
  */
 export class CsvChunkReader {
   private readonly sink: CsvRowSink;
   private readonly dialect: CsvDialect;
   private readonly nlCode: number;
-  private rest = '';
+  private readonly decoder = new TextDecoder('utf-8');
+  private rest: Uint8Array = new Uint8Array(0);
   private linesBefore = 0;
   private first = true;
 
@@ -304,31 +406,51 @@ export class CsvChunkReader {
     this.nlCode = this.dialect.newline === '\r' ? 13 : 10;
   }
 
-  push(chunk: string): void {
-    let text = this.rest + chunk;
-    if (this.first && text.length > 0) {
-      if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+  /** The next bytes of the file. */
+  push(chunk: Uint8Array): void {
+    let bytes = chunk;
+    if (this.rest.length > 0) {
+      bytes = new Uint8Array(this.rest.length + chunk.length);
+      bytes.set(this.rest);
+      bytes.set(chunk, this.rest.length);
+    }
+    if (this.first) {
+      if (bytes.length < 3) {
+        this.rest = copyOf(bytes, 0);
+        return;
+      }
+      if (bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf) bytes = bytes.subarray(3);
       this.first = false;
     }
-    const nl = this.dialect.newline === '\r' ? '\r' : '\n';
-    const cut = text.lastIndexOf(nl);
+    const cut = bytes.lastIndexOf(this.nlCode);
     if (cut < 0) {
-      this.rest = text;
+      this.rest = copyOf(bytes, 0);
       return;
     }
-    this.rest = text.slice(cut + 1);
-    this.parse(text.slice(0, cut + 1));
+    this.rest = copyOf(bytes, cut + 1);
+    this.parse(bytes.subarray(0, cut + 1));
   }
 
   /** Parses what is left and returns the log. */
   end(): FlightLog {
-    const endedWithNewline = this.rest.length === 0;
-    if (this.rest.length > 0) this.parse(this.rest);
-    this.rest = '';
+    let rest = this.rest;
+    if (this.first && rest.length >= 3 && rest[0] === 0xef && rest[1] === 0xbb && rest[2] === 0xbf) rest = rest.subarray(3);
+    const endedWithNewline = rest.length === 0;
+    if (rest.length > 0) this.parse(rest);
+    this.rest = new Uint8Array(0);
     return this.sink.finish(endedWithNewline);
   }
 
-  private parse(body: string): void {
+  private parse(body: Uint8Array): void {
+    if (this.dialect.newline !== '\r' && body.indexOf(34 /* " */) < 0) {
+      this.parseQuoteFree(body);
+      return;
+    }
+    this.parseWithQuotes(this.decoder.decode(body));
+  }
+
+  /** Text with quote characters (or old Mac line breaks), through papaparse. */
+  private parseWithQuotes(body: string): void {
     const nlCode = this.nlCode;
     let scan = 0;
     let newlines = this.linesBefore;
@@ -347,6 +469,34 @@ export class CsvChunkReader {
     for (; scan < body.length; scan++) if (body.charCodeAt(scan) === nlCode) newlines++;
     this.linesBefore = newlines;
   }
+
+  /**
+   * Bytes without quote characters, as papaparse reads such text (its fast mode: split at the newline, then
+   * at the delimiter), line by line into the sink's in-place reader. Line numbers count '\n' characters.
+   */
+  private parseQuoteFree(body: Uint8Array): void {
+    const crlf = this.dialect.newline === '\r\n';
+    const len = body.length;
+    let newlines = this.linesBefore;
+    let pos = 0;
+    while (pos < len) {
+      let nl = body.indexOf(10, pos);
+      // With CRLF line breaks a lone '\n' stays inside its row (and still counts for the line numbers).
+      let inner = 0;
+      while (crlf && nl >= 0 && (nl === pos || body[nl - 1] !== 13)) {
+        inner++;
+        nl = body.indexOf(10, nl + 1);
+      }
+      const end = nl < 0 ? len : crlf ? nl - 1 : nl;
+      // A row is numbered by the line it ends on, as in the papaparse way.
+      newlines += inner;
+      this.sink.rowInPlace(body, pos, end, newlines + 1);
+      if (nl < 0) break;
+      newlines++;
+      pos = nl + 1;
+    }
+    this.linesBefore = newlines;
+  }
 }
 
 /**
@@ -359,11 +509,12 @@ export class CsvChunkReader {
  */
 export function parseCsv(text: string, file: string, opts: CsvOptions = {}): FlightLog {
   const reader = new CsvChunkReader(file, opts, text.slice(0, 65536));
+  const bytes = new TextEncoder().encode(text);
   // Large texts go in slices so that progress can be reported; the result does not depend on the slicing.
   const slice = 4 * 1024 * 1024;
-  for (let i = 0; i < text.length; i += slice) {
-    reader.push(text.slice(i, i + slice));
-    opts.onProgress?.(Math.min(1, (i + slice) / Math.max(1, text.length)));
+  for (let i = 0; i < bytes.length; i += slice) {
+    reader.push(bytes.subarray(i, i + slice));
+    opts.onProgress?.(Math.min(1, (i + slice) / Math.max(1, bytes.length)));
   }
   const log = reader.end();
   opts.onProgress?.(1);

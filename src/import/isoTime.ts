@@ -10,7 +10,7 @@ const TIME_OF_DAY = /^\s*(\d{1,2}):(\d{2})(?::(\d{2})(?:[.,](\d+))?)?\s*$/;
 const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 
 /** Days in a month of the proleptic Gregorian calendar (month 1–12). */
-function daysInMonth(year: number, month: number): number {
+export function daysInMonth(year: number, month: number): number {
   const leap = (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
   return month === 2 && leap ? 29 : DAYS_IN_MONTH[month - 1];
 }
@@ -19,7 +19,7 @@ function daysInMonth(year: number, month: number): number {
  * Days from 1970-01-01 to a proleptic Gregorian date (month 1–12), without a Date object: the
  * days_from_civil algorithm of H. Hinnant, "chrono-Compatible Low-Level Date Algorithms" (2013).
  */
-function daysFromCivil(year: number, month: number, day: number): number {
+export function daysFromCivil(year: number, month: number, day: number): number {
   const y = month <= 2 ? year - 1 : year;
   const era = Math.floor(y / 400);
   const yoe = y - era * 400;
@@ -34,35 +34,39 @@ function digitAt(text: string, i: number): number {
   return c >= 0 && c <= 9 ? c : -1;
 }
 
+/** The two-digit number at i, or −1. */
+function twoDigitsAt(text: string, i: number): number {
+  const a = digitAt(text, i);
+  const b = digitAt(text, i + 1);
+  return a < 0 || b < 0 ? -1 : a * 10 + b;
+}
+
 /**
- * The exact layout receivers and our own writers use, `YYYY-MM-DDThh:mm:ss[.fraction]Z`, read by character
- * codes (no regular expression); NaN for anything else, which then goes the general way.
+ * The exact layout receivers and our own writers use, `YYYY-MM-DDThh:mm:ss[.fraction]Z`, in text[start, end),
+ * read by character codes (no regular expression, no substring); NaN for anything else, which then goes
+ * the general way (parseIsoDateTime).
  */
-function parseIsoUtcFast(text: string): number {
-  const len = text.length;
-  if (len < 20 || text.charCodeAt(len - 1) !== 90 /* Z */ || text.charCodeAt(4) !== 45 || text.charCodeAt(7) !== 45 ||
-    text.charCodeAt(10) !== 84 /* T */ || text.charCodeAt(13) !== 58 || text.charCodeAt(16) !== 58) return NaN;
-  const two = (i: number): number => {
-    const a = digitAt(text, i);
-    const b = digitAt(text, i + 1);
-    return a < 0 || b < 0 ? -1 : a * 10 + b;
-  };
-  const y1 = two(0);
-  const y2 = two(2);
-  const month = two(5);
-  const day = two(8);
-  const hour = two(11);
-  const minute = two(14);
-  const second = two(17);
+function parseIsoUtcSpan(text: string, start: number, end: number): number {
+  const len = end - start;
+  const s = start;
+  if (len < 20 || text.charCodeAt(end - 1) !== 90 /* Z */ || text.charCodeAt(s + 4) !== 45 || text.charCodeAt(s + 7) !== 45 ||
+    text.charCodeAt(s + 10) !== 84 /* T */ || text.charCodeAt(s + 13) !== 58 || text.charCodeAt(s + 16) !== 58) return NaN;
+  const y1 = twoDigitsAt(text, s);
+  const y2 = twoDigitsAt(text, s + 2);
+  const month = twoDigitsAt(text, s + 5);
+  const day = twoDigitsAt(text, s + 8);
+  const hour = twoDigitsAt(text, s + 11);
+  const minute = twoDigitsAt(text, s + 14);
+  const second = twoDigitsAt(text, s + 17);
   if (y1 < 0 || y2 < 0 || month < 0 || day < 0 || hour < 0 || minute < 0 || second < 0) return NaN;
   const year = y1 * 100 + y2;
   if (month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month) || hour > 23 || minute > 59 || second > 60) return NaN;
   let fraction = 0;
   if (len > 20) {
-    if (text.charCodeAt(19) !== 46 /* . */ || len === 21 || len > 36) return NaN;
+    if (text.charCodeAt(s + 19) !== 46 /* . */ || len === 21 || len > 36) return NaN;
     // The fraction as an integer over a power of ten: one correctly rounded division, as Number('0.…') gives.
     let num = 0;
-    for (let i = 20; i < len - 1; i++) {
+    for (let i = s + 20; i < end - 1; i++) {
       const v = digitAt(text, i);
       if (v < 0) return NaN;
       num = num * 10 + v;
@@ -80,7 +84,7 @@ function parseIsoUtcFast(text: string): number {
  * Leap second 60 is accepted and lands on the next minute's 0 s (Unix time has no leap seconds).
  */
 export function parseIsoDateTime(text: string, noZoneOffsetMin = 0): number {
-  const fast = parseIsoUtcFast(text);
+  const fast = parseIsoUtcSpan(text, 0, text.length);
   if (fast === fast) return fast; // not NaN: the common YYYY-MM-DDThh:mm:ss[.f…]Z layout
   const m = ISO_DATE_TIME.exec(text);
   if (!m) return NaN;

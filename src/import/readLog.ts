@@ -48,40 +48,44 @@ export async function readHead(path: string): Promise<Uint8Array> {
   }
 }
 
-/** Streams a CSV or NMEA file through its chunk reader. */
+/** Streams a CSV or NMEA file through its chunk reader (CSV as bytes, NMEA as decoded text). */
 async function streamTextLog(path: string, size: number, format: 'csv' | 'nmea', head: Uint8Array, opts: ReadOptions): Promise<FlightLog> {
-  const decoder = new TextDecoder('utf-8');
-  let push: (text: string) => void;
+  let push: (bytes: Uint8Array) => void;
   let end: () => FlightLog;
   if (format === 'csv') {
     const reader = new CsvChunkReader(path, { columns: opts.columns, date: opts.date, tzOffsetMin: opts.tzOffsetMin, headingRef: opts.headingRef }, new TextDecoder('utf-8').decode(head));
-    push = (t) => reader.push(t);
+    push = (b) => reader.push(b);
     end = () => reader.end();
   } else {
+    const decoder = new TextDecoder('utf-8');
+    let first = true;
     const sink = new NmeaLineSink(path, { date: opts.date });
     const lines = new LineSplitter((line, n) => sink.line(line, n));
-    push = (t) => lines.push(t);
-    end = () => sink.finish(lines.end());
+    push = (b) => {
+      let text = decoder.decode(b, { stream: true });
+      if (first) {
+        if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+        first = false;
+      }
+      lines.push(text);
+    };
+    end = () => {
+      lines.push(decoder.decode());
+      return sink.finish(lines.end());
+    };
   }
   let read = 0;
-  let first = true;
   let lastReported = 0;
   const stream = createReadStream(path, { highWaterMark: STREAM_CHUNK_BYTES });
   for await (const chunk of stream as AsyncIterable<Buffer>) {
     read += chunk.length;
-    let text = decoder.decode(chunk, { stream: true });
-    if (first) {
-      if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
-      first = false;
-    }
-    push(text);
+    push(chunk);
     const fraction = Math.min(1, read / Math.max(1, size));
     if (opts.onProgress && fraction - lastReported >= 0.01) {
       lastReported = fraction;
       opts.onProgress(fraction);
     }
   }
-  push(decoder.decode());
   return end();
 }
 

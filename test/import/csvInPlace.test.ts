@@ -1,0 +1,133 @@
+// The in-place CSV reader (bytes, no string per field) against the general way (papaparse, then the
+// string readers), and the byte readers of asciiFields.ts against Number() and parseIsoDateTime.
+// Oracles: Number() (ECMA-262 §7.1.4.1.1 StringToNumber, correctly rounded) for decimals; the regex-based
+// parseIsoDateTime of isoTime.ts (checked against Date.UTC in isoTime.test.ts) for times; papaparse's own
+// reading of the same text for the split into rows and fields.
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { COMMA, POINT, parseIsoUtcBytes, parsePlainDecimalBytes } from '../../src/import/asciiFields.js';
+import { parseCsv } from '../../src/import/csv.js';
+import { parseIsoDateTime } from '../../src/import/isoTime.js';
+import type { FlightLog } from '../../src/log/flightLog.js';
+
+const ascii = (s: string) => new TextEncoder().encode(s);
+
+describe('parsePlainDecimalBytes', () => {
+  it('equals Number() wherever it gives a number, over random plain decimals', () => {
+    const plain = fc
+      .tuple(fc.constantFrom('', '-', '+'), fc.stringMatching(/^[0-9]{0,9}$/), fc.option(fc.stringMatching(/^[0-9]{0,9}$/)))
+      .map(([s, i, f]) => `${s}${i}${f === null ? '' : `.${f}`}`);
+    fc.assert(
+      fc.property(plain, (text) => {
+        const v = parsePlainDecimalBytes(ascii(text), 0, text.length, POINT);
+        const digits = text.replace(/[^0-9]/g, '').length;
+        if (digits === 0 || digits > 15) expect(v).toBeNaN();
+        else expect(Object.is(v, Number(text))).toBe(true);
+      }),
+      { numRuns: 20000 },
+    );
+  });
+
+  it('equals Number() on printed doubles (shortest round-trip and fixed forms)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: -1e6, max: 1e6, noNaN: true }), fc.integer({ min: 0, max: 9 }), (x, d) => {
+        for (const text of [x.toFixed(d), String(x)]) {
+          const v = parsePlainDecimalBytes(ascii(text), 0, text.length, POINT);
+          if (v === v) expect(Object.is(v, Number(text))).toBe(true);
+        }
+      }),
+      { numRuns: 20000 },
+    );
+  });
+
+  it('gives NaN (the general way decides) for blanks, exponents, junk, a lone point, two points', () => {
+    for (const text of ['', ' 1', '1 ', '1e3', '0x10', '1,5', '.', '-', '1.2.3', 'Infinity', '12a']) {
+      expect(parsePlainDecimalBytes(ascii(text), 0, text.length, POINT)).toBeNaN();
+    }
+    expect(parsePlainDecimalBytes(ascii('12,5'), 0, 4, COMMA)).toBe(12.5);
+    expect(parsePlainDecimalBytes(ascii('12.5'), 0, 4, COMMA)).toBeNaN();
+    // Reads only its span: "52.5" inside "x,52.5,y".
+    expect(parsePlainDecimalBytes(ascii('x,52.5,y'), 2, 6, POINT)).toBe(52.5);
+  });
+});
+
+describe('parseIsoUtcBytes', () => {
+  it('equals parseIsoDateTime on random UTC times with 0-9 fraction digits, and rejects impossible dates', () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1980, max: 2099 }),
+        fc.integer({ min: 0, max: 13 }),
+        fc.integer({ min: 0, max: 32 }),
+        fc.integer({ min: 0, max: 24 }),
+        fc.integer({ min: 0, max: 60 }),
+        fc.integer({ min: 0, max: 60 }),
+        fc.stringMatching(/^[0-9]{0,9}$/),
+        (y, mo, d, h, mi, s, f) => {
+          const p2 = (k: number) => String(k).padStart(2, '0');
+          const text = `${y}-${p2(mo)}-${p2(d)}T${p2(h)}:${p2(mi)}:${p2(s)}${f ? `.${f}` : ''}Z`;
+          const v = parseIsoUtcBytes(ascii(text), 0, text.length);
+          const ref = parseIsoDateTime(text);
+          if (Number.isNaN(ref)) expect(v).toBeNaN();
+          else expect(v).toBe(ref);
+        },
+      ),
+      { numRuns: 20000 },
+    );
+  });
+});
+
+/** The log's columns and what the reader said, for comparing two readings of the same rows. */
+function essence(log: FlightLog) {
+  const cols: Record<string, number[]> = {};
+  for (const [k, v] of Object.entries(log)) if (v instanceof Float64Array || v instanceof Int32Array) cols[k] = Array.from(v);
+  return { cols, warnings: log.source.warnings, reader: log.source.reader };
+}
+
+describe('parseCsv: the in-place way reads as the papaparse way does', () => {
+  // A field: a plain number, an unusual but valid number, a blank, junk or nothing.
+  const field = fc.oneof(
+    { weight: 6, arbitrary: fc.double({ min: -500, max: 500, noNaN: true }).map((x) => x.toFixed(3)) },
+    { weight: 1, arbitrary: fc.constantFrom('', ' ', '1e2', ' 7.5 ', '+3', '.5', '5.', 'abc', '1.2.3', '12345678901234567', '\t') },
+  );
+  const time = fc.oneof(
+    { weight: 8, arbitrary: fc.integer({ min: 0, max: 86399 }).map((s) => new Date(Date.UTC(2026, 4, 4) + s * 1000).toISOString()) },
+    { weight: 1, arbitrary: fc.constantFrom('', 'not a time', '2026-05-04 10:00:00Z', '2026-05-04T10:00:00+02:00', ' 2026-05-04T10:00:01Z') },
+  );
+  const row = fc.oneof(
+    { weight: 12, arbitrary: fc.tuple(time, field, field, field, field).map((fs) => fs.join(',')) },
+    { weight: 1, arbitrary: fc.constantFrom('', ',,,,', '# a comment', '  ', '2026-05-04T10:00:00Z,52', 'x,y,z,w,v,u') },
+  );
+
+  it('gives the same columns, warnings and counts for random quote-free texts, LF and CRLF', () => {
+    fc.assert(
+      fc.property(fc.array(row, { minLength: 1, maxLength: 40 }), fc.boolean(), (rows, crlf) => {
+        const nl = crlf ? '\r\n' : '\n';
+        const text = ['time,lat,lon,alt_ft,gs_kt', ...rows].join(nl) + nl;
+        // A quote character anywhere sends the whole text through papaparse: a comment line at the end.
+        const quoted = `${text}#"${nl}`;
+        let a: unknown;
+        let b: unknown;
+        try {
+          a = essence(parseCsv(text, 'a.csv'));
+        } catch (err) {
+          a = String(err);
+        }
+        try {
+          b = essence(parseCsv(quoted, 'a.csv'));
+        } catch (err) {
+          b = String(err);
+        }
+        expect(a).toEqual(b);
+      }),
+      { numRuns: 1500 },
+    );
+  });
+
+  it('keeps line numbers across lone line feeds in a CRLF file and across chunks', () => {
+    const text = 'time,lat,lon\r\n2026-05-04T10:00:00Z,52,1\r\n\n2026-05-04T10:00:01Z,52,1\r\n';
+    const ref = parseCsv(`${text}#"\r\n`, 'c.csv');
+    const log = parseCsv(text, 'c.csv');
+    expect(Array.from(log.line)).toEqual(Array.from(ref.line));
+    expect(log.t.length).toBe(2);
+  });
+});
