@@ -48,7 +48,8 @@ export function cleanLog(log: FlightLog): { log: FlightLog; health: LogHealth } 
   const duplicate = new LineTally();
 
   // 1. Rows with a usable time and position, in file order; count those that go back in time.
-  const valid: number[] = [];
+  let valid = new Int32Array(n);
+  let nValid = 0;
   const late = new Uint8Array(n);
   let lateCount = 0;
   let maxT = -Infinity;
@@ -72,11 +73,12 @@ export function cleanLog(log: FlightLog): { log: FlightLog; health: LogHealth } 
       late[i] = 1;
       lateCount++;
     } else maxT = ti;
-    valid.push(i);
+    valid[nValid++] = i;
   }
+  valid = valid.subarray(0, nValid);
 
   // 2. Stable sort by time (ties broken by row index, so file order is kept whatever the engine).
-  if (lateCount > 0) valid.sort((a, b) => t[a] - t[b] || a - b);
+  if (lateCount > 0) valid = Int32Array.from(Array.from(valid).sort((a, b) => t[a] - t[b] || a - b));
 
   // 3. Drop repeated times, keeping the first row of each time. A late row that is kept counts as out of order.
   const keep = new Int32Array(valid.length);
