@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { COMMA, POINT, parseIsoUtcBytes, parsePlainDecimalBytes } from '../../src/import/asciiFields.js';
 import { parseCsv } from '../../src/import/csv.js';
 import { parseIsoDateTime } from '../../src/import/isoTime.js';
+import { parseDecimal, parseDecimalComma } from '../../src/import/parseNumber.js';
 import type { FlightLog } from '../../src/log/flightLog.js';
 
 const ascii = (s: string) => new TextEncoder().encode(s);
@@ -129,5 +130,27 @@ describe('parseCsv: the in-place way reads as the papaparse way does', () => {
     const log = parseCsv(text, 'c.csv');
     expect(Array.from(log.line)).toEqual(Array.from(ref.line));
     expect(log.t.length).toBe(2);
+  });
+});
+
+describe('parseDecimal and parseDecimalComma (string readers with the same fast path)', () => {
+  // Reference: the strict grammar of parseNumber.ts, then Number() (ECMA-262 StringToNumber).
+  const DECIMAL = /^\s*[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?\s*$/;
+  const reference = (t: string) => (DECIMAL.test(t) ? Number(t) : NaN);
+  it('equal the grammar-then-Number() reference on random numbers and near-numbers', () => {
+    const text = fc.oneof(
+      fc.double({ noNaN: true }).map(String),
+      fc.double({ min: -1e4, max: 1e4, noNaN: true }).chain((x) => fc.integer({ min: 0, max: 12 }).map((d) => x.toFixed(d))),
+      fc.stringMatching(/^[ +\-0-9.eE,x]{0,12}$/),
+    );
+    fc.assert(
+      fc.property(text, (t) => {
+        expect(Object.is(parseDecimal(t), reference(t))).toBe(true);
+        const comma = t.replace('.', ',');
+        const refComma = /^\s*[+-]?(?:\d+(?:,\d*)?|,\d+)(?:[eE][+-]?\d+)?\s*$/.test(comma) ? Number(comma.replace(',', '.')) : NaN;
+        expect(Object.is(parseDecimalComma(comma), refComma)).toBe(true);
+      }),
+      { numRuns: 30000 },
+    );
   });
 });
