@@ -87,21 +87,30 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
     if (ax.pos.length !== n || ax.posVar.length !== n) throw new OptionError('rtsSmoothWhiteJerk', 'position columns must have the length of t');
     if (ax.vel && (ax.vel.length !== n || !ax.velVar || ax.velVar.length !== n)) throw new OptionError('rtsSmoothWhiteJerk', 'velocity columns must have the length of t');
   }
-  // Filtered state (3 per sample) and covariance (6 per sample: p00 p01 p02 p11 p12 p22) per axis.
-  const xf: Float64Array[] = [];
-  const pf: Float64Array[] = [];
-  const cur = new Float64Array(9 * m); // working x (3) + P (6) per axis
+  // Filtered state and covariance per axis, 9 per sample: x0 x1 x2, p00 p01 p02 p11 p12 p22. The filter
+  // runs in these buffers: step i predicts from row i − 1 into row i, then updates row i in place.
+  const f: Float64Array[] = [];
+  // Plain arrays of the columns, so that the loops below read them without looking at axis objects.
+  const pos: Float64Array[] = [], posVar: Float64Array[] = [], vel: Float64Array[] = [], velVar: Float64Array[] = [];
+  const q = new Float64Array(m);
+  let anyVel = false;
   for (let j = 0; j < m; j++) {
-    xf.push(new Float64Array(3 * n));
-    pf.push(new Float64Array(6 * n));
-    const pos = axes[j].pos;
+    const ax = axes[j];
+    pos.push(ax.pos);
+    posVar.push(ax.posVar);
+    vel.push(ax.vel ?? NO_COLUMN);
+    velVar.push(ax.vel ? ax.velVar! : NO_COLUMN);
+    if (ax.vel) anyVel = true;
+    q[j] = ax.jerkPsd;
+    const buf = new Float64Array(9 * n);
+    f.push(buf);
+    if (n === 0) continue;
     let p0 = 0;
-    for (let i = 0; i < n; i++) if (Number.isFinite(pos[i])) { p0 = pos[i]; break; }
-    const c = 9 * j;
-    cur[c] = p0;
-    cur[c + 3] = 1e8; // 10 km prior sigma: the first fix decides
-    cur[c + 6] = v0Var;
-    cur[c + 8] = a0Var;
+    for (let i = 0; i < n; i++) if (Number.isFinite(ax.pos[i])) { p0 = ax.pos[i]; break; }
+    buf[0] = p0;
+    buf[3] = 1e8; // 10 km prior sigma: the first fix decides
+    buf[6] = v0Var;
+    buf[8] = a0Var;
   }
   const posRejected = new Uint8Array(n);
   const posInflated = new Uint8Array(n);
@@ -109,18 +118,24 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
   let run = 0;
 
   for (let i = 0; i < n; i++) {
-    const T = i === 0 ? 0 : t[i] - t[i - 1];
-    if (T > 0) for (let j = 0; j < m; j++) predictInPlace(cur, 9 * j, T, axes[j].jerkPsd);
+    const c = 9 * i;
+    if (i > 0) {
+      const T = t[i] - t[i - 1];
+      for (let j = 0; j < m; j++) {
+        if (T > 0) predictInto(f[j], c - 9, c, T, q[j]);
+        else f[j].copyWithin(c, c - 9, c);
+      }
+    }
 
     // Position fix, gated jointly over the axes that have a value.
     let d2 = 0;
     let dof = 0;
     for (let j = 0; j < m; j++) {
-      const z = axes[j].pos[i];
+      const z = pos[j][i];
       if (!Number.isFinite(z)) continue;
-      const c = 9 * j;
-      const nu = z - cur[c];
-      d2 += (nu * nu) / (cur[c + 3] + axes[j].posVar[i]);
+      const s = f[j];
+      const nu = z - s[c];
+      d2 += (nu * nu) / (s[c + 3] + posVar[j][i]);
       dof++;
     }
     if (dof > 0) {
@@ -142,24 +157,24 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
       }
       if (use) {
         for (let j = 0; j < m; j++) {
-          const z = axes[j].pos[i];
+          const z = pos[j][i];
           if (!Number.isFinite(z)) continue;
-          const c = 9 * j;
-          const s = (cur[c + 3] + axes[j].posVar[i]) * scale;
-          updateInPlace(cur, c, 0, z - cur[c], s);
+          const s = f[j];
+          updatePosition(s, c, z - s[c], (s[c + 3] + posVar[j][i]) * scale);
         }
       }
     }
 
     // Velocity measurement, gated jointly, never inflated.
+    if (!anyVel) continue;
     d2 = 0;
     dof = 0;
     for (let j = 0; j < m; j++) {
-      const vel = axes[j].vel;
-      if (!vel || !Number.isFinite(vel[i])) continue;
-      const c = 9 * j;
-      const nu = vel[i] - cur[c + 1];
-      d2 += (nu * nu) / (cur[c + 6] + axes[j].velVar![i]);
+      const vz = vel[j];
+      if (vz.length === 0 || !Number.isFinite(vz[i])) continue;
+      const s = f[j];
+      const nu = vz[i] - s[c + 1];
+      d2 += (nu * nu) / (s[c + 6] + velVar[j][i]);
       dof++;
     }
     if (dof > 0) {
@@ -167,36 +182,27 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
         velRejected[i] = 1;
       } else {
         for (let j = 0; j < m; j++) {
-          const vel = axes[j].vel;
-          if (!vel || !Number.isFinite(vel[i])) continue;
-          const c = 9 * j;
-          updateInPlace(cur, c, 1, vel[i] - cur[c + 1], cur[c + 6] + axes[j].velVar![i]);
+          const vz = vel[j];
+          if (vz.length === 0 || !Number.isFinite(vz[i])) continue;
+          const s = f[j];
+          updateVelocity(s, c, vz[i] - s[c + 1], s[c + 6] + velVar[j][i]);
         }
       }
-    }
-
-    for (let j = 0; j < m; j++) {
-      const c = 9 * j;
-      const x = xf[j], P = pf[j];
-      const bx = 3 * i, bp = 6 * i;
-      x[bx] = cur[c]; x[bx + 1] = cur[c + 1]; x[bx + 2] = cur[c + 2];
-      P[bp] = cur[c + 3]; P[bp + 1] = cur[c + 4]; P[bp + 2] = cur[c + 5];
-      P[bp + 3] = cur[c + 6]; P[bp + 4] = cur[c + 7]; P[bp + 5] = cur[c + 8];
     }
   }
 
   const out: RtsAxisResult[] = [];
-  for (let j = 0; j < m; j++) out.push(smoothBackward(t, xf[j], pf[j], axes[j].jerkPsd));
+  for (let j = 0; j < m; j++) out.push(smoothBackward(t, f[j], q[j]));
   const posSpike = new Uint8Array(n);
   for (let i = 0; i < n; i++) {
     if (posRejected[i] === 0) continue;
     let d2 = 0;
     let dof = 0;
     for (let j = 0; j < m; j++) {
-      const z = axes[j].pos[i];
+      const z = pos[j][i];
       if (!Number.isFinite(z)) continue;
       const r = z - out[j].p[i];
-      d2 += (r * r) / (axes[j].posVar[i] + out[j].pVar[i]);
+      d2 += (r * r) / (posVar[j][i] + out[j].pVar[i]);
       dof++;
     }
     if (dof > 0 && d2 > CHI2_9999[dof]) posSpike[i] = 1;
@@ -204,13 +210,17 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
   return { axes: out, posRejected, posSpike, posInflated, velRejected };
 }
 
-/** Kalman prediction over T [s] of the state at s[c..c+8] = x(3), P(6): x ← F x, P ← F P Fᵀ + Q. */
-function predictInPlace(s: Float64Array, c: number, T: number, q: number): void {
+/** Stands for an absent velocity column in the loops (length 0). */
+const NO_COLUMN = new Float64Array(0);
+
+/** Kalman prediction over T [s] from the state at s[a..a+8] = x(3), P(6) into s[b..b+8]: x ← F x, P ← F P Fᵀ + Q. */
+function predictInto(s: Float64Array, a: number, b: number, T: number, q: number): void {
   const h = 0.5 * T * T;
-  const x0 = s[c], x1 = s[c + 1], x2 = s[c + 2];
-  s[c] = x0 + T * x1 + h * x2;
-  s[c + 1] = x1 + T * x2;
-  const p00 = s[c + 3], p01 = s[c + 4], p02 = s[c + 5], p11 = s[c + 6], p12 = s[c + 7], p22 = s[c + 8];
+  const x0 = s[a], x1 = s[a + 1], x2 = s[a + 2];
+  s[b] = x0 + T * x1 + h * x2;
+  s[b + 1] = x1 + T * x2;
+  s[b + 2] = x2;
+  const p00 = s[a + 3], p01 = s[a + 4], p02 = s[a + 5], p11 = s[a + 6], p12 = s[a + 7], p22 = s[a + 8];
   // A = F P (rows 0 and 1 change), then A Fᵀ.
   const a00 = p00 + T * p01 + h * p02;
   const a01 = p01 + T * p11 + h * p12;
@@ -218,20 +228,17 @@ function predictInPlace(s: Float64Array, c: number, T: number, q: number): void 
   const a11 = p11 + T * p12;
   const a12 = p12 + T * p22;
   const T2 = T * T, T3 = T2 * T;
-  s[c + 3] = a00 + T * a01 + h * a02 + q * (T3 * T2) / 20;
-  s[c + 4] = a01 + T * a02 + q * (T2 * T2) / 8;
-  s[c + 5] = a02 + q * T3 / 6;
-  s[c + 6] = a11 + T * a12 + q * T3 / 3;
-  s[c + 7] = a12 + q * T2 / 2;
-  s[c + 8] = p22 + q * T;
+  s[b + 3] = a00 + T * a01 + h * a02 + q * (T3 * T2) / 20;
+  s[b + 4] = a01 + T * a02 + q * (T2 * T2) / 8;
+  s[b + 5] = a02 + q * T3 / 6;
+  s[b + 6] = a11 + T * a12 + q * T3 / 3;
+  s[b + 7] = a12 + q * T2 / 2;
+  s[b + 8] = p22 + q * T;
 }
 
-/** Scalar Kalman update of component `k` (0 = p, 1 = v) with innovation nu and innovation variance S. */
-function updateInPlace(s: Float64Array, c: number, k: 0 | 1, nu: number, S: number): void {
-  // Column k of P: P_0k, P_1k, P_2k.
-  const g0 = k === 0 ? s[c + 3] : s[c + 4];
-  const g1 = k === 0 ? s[c + 4] : s[c + 6];
-  const g2 = k === 0 ? s[c + 5] : s[c + 7];
+/** Scalar Kalman update of the position (H = [1 0 0]) of the state at s[c..c+8] with innovation nu and variance S. */
+function updatePosition(s: Float64Array, c: number, nu: number, S: number): void {
+  const g0 = s[c + 3], g1 = s[c + 4], g2 = s[c + 5];
   const inv = 1 / S;
   s[c] += g0 * inv * nu;
   s[c + 1] += g1 * inv * nu;
@@ -244,37 +251,41 @@ function updateInPlace(s: Float64Array, c: number, k: 0 | 1, nu: number, S: numb
   s[c + 8] -= g2 * g2 * inv;
 }
 
-/** RTS backward pass for one axis over filtered states xf (3n) and covariances pf (6n). */
-function smoothBackward(t: Float64Array, xf: Float64Array, pf: Float64Array, q: number): RtsAxisResult {
+/** Scalar Kalman update of the velocity (H = [0 1 0]) of the state at s[c..c+8] with innovation nu and variance S. */
+function updateVelocity(s: Float64Array, c: number, nu: number, S: number): void {
+  const g0 = s[c + 4], g1 = s[c + 6], g2 = s[c + 7];
+  const inv = 1 / S;
+  s[c] += g0 * inv * nu;
+  s[c + 1] += g1 * inv * nu;
+  s[c + 2] += g2 * inv * nu;
+  s[c + 3] -= g0 * g0 * inv;
+  s[c + 4] -= g0 * g1 * inv;
+  s[c + 5] -= g0 * g2 * inv;
+  s[c + 6] -= g1 * g1 * inv;
+  s[c + 7] -= g1 * g2 * inv;
+  s[c + 8] -= g2 * g2 * inv;
+}
+
+/** RTS backward pass for one axis over the filtered states and covariances f (9 per sample). */
+function smoothBackward(t: Float64Array, f: Float64Array, q: number): RtsAxisResult {
   const n = t.length;
-  const r: RtsAxisResult = {
-    p: new Float64Array(n),
-    v: new Float64Array(n),
-    a: new Float64Array(n),
-    pVar: new Float64Array(n),
-    vVar: new Float64Array(n),
-    aVar: new Float64Array(n),
-  };
+  const rp = new Float64Array(n), rv = new Float64Array(n), ra = new Float64Array(n);
+  const rpVar = new Float64Array(n), rvVar = new Float64Array(n), raVar = new Float64Array(n);
+  const r: RtsAxisResult = { p: rp, v: rv, a: ra, pVar: rpVar, vVar: rvVar, aVar: raVar };
   if (n === 0) return r;
   const k0 = n - 1;
-  let xs0 = xf[3 * k0], xs1 = xf[3 * k0 + 1], xs2 = xf[3 * k0 + 2];
-  let s00 = pf[6 * k0], s01 = pf[6 * k0 + 1], s02 = pf[6 * k0 + 2];
-  let s11 = pf[6 * k0 + 3], s12 = pf[6 * k0 + 4], s22 = pf[6 * k0 + 5];
-  const store = (k: number): void => {
-    r.p[k] = xs0;
-    r.v[k] = xs1;
-    r.a[k] = xs2;
-    r.pVar[k] = s00;
-    r.vVar[k] = s11;
-    r.aVar[k] = s22;
-  };
-  store(k0);
+  const e = 9 * k0;
+  let xs0 = f[e], xs1 = f[e + 1], xs2 = f[e + 2];
+  let s00 = f[e + 3], s01 = f[e + 4], s02 = f[e + 5];
+  let s11 = f[e + 6], s12 = f[e + 7], s22 = f[e + 8];
+  rp[k0] = xs0; rv[k0] = xs1; ra[k0] = xs2;
+  rpVar[k0] = s00; rvVar[k0] = s11; raVar[k0] = s22;
   for (let k = n - 2; k >= 0; k--) {
     const T = t[k + 1] - t[k];
     const h = 0.5 * T * T;
-    const f0 = xf[3 * k], f1 = xf[3 * k + 1], f2 = xf[3 * k + 2];
-    const b = 6 * k;
-    const p00 = pf[b], p01 = pf[b + 1], p02 = pf[b + 2], p11 = pf[b + 3], p12 = pf[b + 4], p22 = pf[b + 5];
+    const b = 9 * k;
+    const f0 = f[b], f1 = f[b + 1], f2 = f[b + 2];
+    const p00 = f[b + 3], p01 = f[b + 4], p02 = f[b + 5], p11 = f[b + 6], p12 = f[b + 7], p22 = f[b + 8];
     // Predicted x and P of step k+1 from the filtered values at k.
     const xp0 = f0 + T * f1 + h * f2;
     const xp1 = f1 + T * f2;
@@ -336,7 +347,8 @@ function smoothBackward(t: Float64Array, xf: Float64Array, pf: Float64Array, q: 
     s11 = p11 + g10 * c10 + g11 * c11 + g12 * c12;
     s12 = p12 + g10 * c20 + g11 * c21 + g12 * c22;
     s22 = p22 + g20 * c20 + g21 * c21 + g22 * c22;
-    store(k);
+    rp[k] = xs0; rv[k] = xs1; ra[k] = xs2;
+    rpVar[k] = s00; rvVar[k] = s11; raVar[k] = s22;
   }
   return r;
 }
