@@ -33,7 +33,10 @@ export interface RtsOptions {
   accPriorSigmaMs2?: number;
 }
 
-/** Smoothed state of one axis: p [m], v [m/s], a [m/s²] and their marginal variances. */
+/**
+ * Smoothed state of one axis: p [m], v [m/s], a [m/s²] and their marginal variances. Axes whose covariances
+ * are the same (same jerk PSD, variances and missing values) share one set of variance columns: read only.
+ */
 export interface RtsAxisResult {
   p: Float64Array;
   v: Float64Array;
@@ -87,30 +90,48 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
     if (ax.pos.length !== n || ax.posVar.length !== n) throw new OptionError('rtsSmoothWhiteJerk', 'position columns must have the length of t');
     if (ax.vel && (ax.vel.length !== n || !ax.velVar || ax.velVar.length !== n)) throw new OptionError('rtsSmoothWhiteJerk', 'velocity columns must have the length of t');
   }
-  // Filtered state and covariance per axis, 9 per sample: x0 x1 x2, p00 p01 p02 p11 p12 p22. The filter
-  // runs in these buffers: step i predicts from row i − 1 into row i, then updates row i in place.
-  const f: Float64Array[] = [];
   // Plain arrays of the columns, so that the loops below read them without looking at axis objects.
   const pos: Float64Array[] = [], posVar: Float64Array[] = [], vel: Float64Array[] = [], velVar: Float64Array[] = [];
-  const q = new Float64Array(m);
-  let anyVel = false;
-  for (let j = 0; j < m; j++) {
-    const ax = axes[j];
+  for (const ax of axes) {
     pos.push(ax.pos);
     posVar.push(ax.posVar);
     vel.push(ax.vel ?? NO_COLUMN);
     velVar.push(ax.vel ? ax.velVar! : NO_COLUMN);
-    if (ax.vel) anyVel = true;
-    q[j] = ax.jerkPsd;
-    const buf = new Float64Array(9 * n);
-    f.push(buf);
+  }
+  const anyVel = vel.some((v) => v.length > 0);
+  // Covariance groups: in a linear Kalman filter the covariance depends on the steps, the model and which
+  // measurements were taken with which variances, never on the measured values. Axes with the same jerk
+  // PSD, the same variances and the same missing values (the north and east axes of a track) therefore
+  // have the same covariance at every step, and it is computed once for them (the same operations in the
+  // same order as for each on its own). The gating decisions are joint over all axes anyway.
+  const groups: number[][] = [];
+  for (let j = 0; j < m; j++) {
+    const g = groups.find((gr) => sameCovariance(axes[gr[0]], axes[j], pos[gr[0]], pos[j], vel[gr[0]], vel[j]));
+    if (g) g.push(j);
+    else groups.push([j]);
+  }
+  const nG = groups.length;
+  const rep = groups.map((g) => g[0]);
+  const members = groups.map((g) => Int32Array.from(g));
+  // Filtered states, 3 per sample per axis (p, v, a), and covariances, 6 per sample per group (p00 p01 p02
+  // p11 p12 p22). The filter runs in these buffers: step i predicts from row i − 1 into row i, then
+  // updates row i in place.
+  const xf: Float64Array[] = [];
+  for (let j = 0; j < m; j++) {
+    const x = new Float64Array(3 * n);
+    xf.push(x);
+    for (let i = 0; i < n; i++) if (Number.isFinite(pos[j][i])) { x[0] = pos[j][i]; break; }
+  }
+  const pf: Float64Array[] = [];
+  const qg = new Float64Array(nG);
+  for (let g = 0; g < nG; g++) {
+    const P = new Float64Array(6 * n);
+    pf.push(P);
+    qg[g] = axes[rep[g]].jerkPsd;
     if (n === 0) continue;
-    let p0 = 0;
-    for (let i = 0; i < n; i++) if (Number.isFinite(ax.pos[i])) { p0 = ax.pos[i]; break; }
-    buf[0] = p0;
-    buf[3] = 1e8; // 10 km prior sigma: the first fix decides
-    buf[6] = v0Var;
-    buf[8] = a0Var;
+    P[0] = 1e8; // 10 km prior sigma: the first fix decides
+    P[3] = v0Var;
+    P[5] = a0Var;
   }
   const posRejected = new Uint8Array(n);
   const posInflated = new Uint8Array(n);
@@ -118,25 +139,32 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
   let run = 0;
 
   for (let i = 0; i < n; i++) {
-    const c = 9 * i;
+    const c = 6 * i, x3 = 3 * i;
     if (i > 0) {
       const T = t[i] - t[i - 1];
+      for (let g = 0; g < nG; g++) {
+        if (T > 0) predictCovariance(pf[g], c - 6, c, T, qg[g]);
+        else pf[g].copyWithin(c, c - 6, c);
+      }
       for (let j = 0; j < m; j++) {
-        if (T > 0) predictInto(f[j], c - 9, c, T, q[j]);
-        else f[j].copyWithin(c, c - 9, c);
+        if (T > 0) predictState(xf[j], x3 - 3, x3, T);
+        else xf[j].copyWithin(x3, x3 - 3, x3);
       }
     }
 
     // Position fix, gated jointly over the axes that have a value.
     let d2 = 0;
     let dof = 0;
-    for (let j = 0; j < m; j++) {
-      const z = pos[j][i];
-      if (!Number.isFinite(z)) continue;
-      const s = f[j];
-      const nu = z - s[c];
-      d2 += (nu * nu) / (s[c + 3] + posVar[j][i]);
-      dof++;
+    for (let g = 0; g < nG; g++) {
+      const P = pf[g], mem = members[g];
+      for (let u = 0; u < mem.length; u++) {
+        const j = mem[u];
+        const z = pos[j][i];
+        if (!Number.isFinite(z)) continue;
+        const nu = z - xf[j][x3];
+        d2 += (nu * nu) / (P[c] + posVar[j][i]);
+        dof++;
+      }
     }
     if (dof > 0) {
       const limit = CHI2_99[dof];
@@ -156,11 +184,21 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
         run = 0;
       }
       if (use) {
-        for (let j = 0; j < m; j++) {
-          const z = pos[j][i];
-          if (!Number.isFinite(z)) continue;
-          const s = f[j];
-          updatePosition(s, c, z - s[c], (s[c + 3] + posVar[j][i]) * scale);
+        for (let g = 0; g < nG; g++) {
+          const r = rep[g];
+          if (!Number.isFinite(pos[r][i])) continue;
+          const P = pf[g], mem = members[g];
+          const inv = 1 / ((P[c] + posVar[r][i]) * scale);
+          const g0 = P[c], g1 = P[c + 1], g2 = P[c + 2];
+          for (let u = 0; u < mem.length; u++) {
+            const j = mem[u];
+            const x = xf[j];
+            const nu = pos[j][i] - x[x3];
+            x[x3] += g0 * inv * nu;
+            x[x3 + 1] += g1 * inv * nu;
+            x[x3 + 2] += g2 * inv * nu;
+          }
+          updateCovariance(P, c, g0, g1, g2, inv);
         }
       }
     }
@@ -169,30 +207,48 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
     if (!anyVel) continue;
     d2 = 0;
     dof = 0;
-    for (let j = 0; j < m; j++) {
-      const vz = vel[j];
-      if (vz.length === 0 || !Number.isFinite(vz[i])) continue;
-      const s = f[j];
-      const nu = vz[i] - s[c + 1];
-      d2 += (nu * nu) / (s[c + 6] + velVar[j][i]);
-      dof++;
+    for (let g = 0; g < nG; g++) {
+      const P = pf[g], mem = members[g];
+      for (let u = 0; u < mem.length; u++) {
+        const j = mem[u];
+        const vz = vel[j];
+        if (vz.length === 0 || !Number.isFinite(vz[i])) continue;
+        const nu = vz[i] - xf[j][x3 + 1];
+        d2 += (nu * nu) / (P[c + 3] + velVar[j][i]);
+        dof++;
+      }
     }
     if (dof > 0) {
       if (gate && d2 > CHI2_99[dof]) {
         velRejected[i] = 1;
       } else {
-        for (let j = 0; j < m; j++) {
-          const vz = vel[j];
-          if (vz.length === 0 || !Number.isFinite(vz[i])) continue;
-          const s = f[j];
-          updateVelocity(s, c, vz[i] - s[c + 1], s[c + 6] + velVar[j][i]);
+        for (let g = 0; g < nG; g++) {
+          const r = rep[g];
+          const vr = vel[r];
+          if (vr.length === 0 || !Number.isFinite(vr[i])) continue;
+          const P = pf[g], mem = members[g];
+          const inv = 1 / (P[c + 3] + velVar[r][i]);
+          const g0 = P[c + 1], g1 = P[c + 3], g2 = P[c + 4];
+          for (let u = 0; u < mem.length; u++) {
+            const j = mem[u];
+            const x = xf[j];
+            const nu = vel[j][i] - x[x3 + 1];
+            x[x3] += g0 * inv * nu;
+            x[x3 + 1] += g1 * inv * nu;
+            x[x3 + 2] += g2 * inv * nu;
+          }
+          updateCovariance(P, c, g0, g1, g2, inv);
         }
       }
     }
   }
 
-  const out: RtsAxisResult[] = [];
-  for (let j = 0; j < m; j++) out.push(smoothBackward(t, f[j], q[j]));
+  const out: RtsAxisResult[] = new Array(m);
+  for (let g = 0; g < nG; g++) {
+    const mem = members[g];
+    const res = smoothBackward(t, pf[g], Array.from(mem, (j) => xf[j]), qg[g]);
+    for (let u = 0; u < mem.length; u++) out[mem[u]] = res[u];
+  }
   const posSpike = new Uint8Array(n);
   for (let i = 0; i < n; i++) {
     if (posRejected[i] === 0) continue;
@@ -210,17 +266,38 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
   return { axes: out, posRejected, posSpike, posInflated, velRejected };
 }
 
+/** Same jerk PSD, same variance columns (by value) and the same missing positions and velocities. */
+function sameCovariance(a: WhiteJerkAxis, b: WhiteJerkAxis, posA: Float64Array, posB: Float64Array, velA: Float64Array, velB: Float64Array): boolean {
+  if (a.jerkPsd !== b.jerkPsd || velA.length !== velB.length) return false;
+  if (!sameValues(a.posVar, b.posVar)) return false;
+  if (velA.length > 0 && !sameValues(a.velVar!, b.velVar!)) return false;
+  for (let i = 0; i < posA.length; i++) if (Number.isFinite(posA[i]) !== Number.isFinite(posB[i])) return false;
+  for (let i = 0; i < velA.length; i++) if (Number.isFinite(velA[i]) !== Number.isFinite(velB[i])) return false;
+  return true;
+}
+
+function sameValues(a: Float64Array, b: Float64Array): boolean {
+  if (a === b) return true;
+  for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) return false;
+  return true;
+}
+
 /** Stands for an absent velocity column in the loops (length 0). */
 const NO_COLUMN = new Float64Array(0);
 
-/** Kalman prediction over T [s] from the state at s[a..a+8] = x(3), P(6) into s[b..b+8]: x ← F x, P ← F P Fᵀ + Q. */
-function predictInto(s: Float64Array, a: number, b: number, T: number, q: number): void {
+/** Kalman prediction of the state over T [s] from x[a..a+2] into x[b..b+2]: x ← F x. */
+function predictState(x: Float64Array, a: number, b: number, T: number): void {
   const h = 0.5 * T * T;
-  const x0 = s[a], x1 = s[a + 1], x2 = s[a + 2];
-  s[b] = x0 + T * x1 + h * x2;
-  s[b + 1] = x1 + T * x2;
-  s[b + 2] = x2;
-  const p00 = s[a + 3], p01 = s[a + 4], p02 = s[a + 5], p11 = s[a + 6], p12 = s[a + 7], p22 = s[a + 8];
+  const x0 = x[a], x1 = x[a + 1], x2 = x[a + 2];
+  x[b] = x0 + T * x1 + h * x2;
+  x[b + 1] = x1 + T * x2;
+  x[b + 2] = x2;
+}
+
+/** Kalman prediction of the covariance over T [s] from P[a..a+5] into P[b..b+5]: P ← F P Fᵀ + Q. */
+function predictCovariance(s: Float64Array, a: number, b: number, T: number, q: number): void {
+  const h = 0.5 * T * T;
+  const p00 = s[a], p01 = s[a + 1], p02 = s[a + 2], p11 = s[a + 3], p12 = s[a + 4], p22 = s[a + 5];
   // A = F P (rows 0 and 1 change), then A Fᵀ.
   const a00 = p00 + T * p01 + h * p02;
   const a01 = p01 + T * p11 + h * p12;
@@ -228,68 +305,57 @@ function predictInto(s: Float64Array, a: number, b: number, T: number, q: number
   const a11 = p11 + T * p12;
   const a12 = p12 + T * p22;
   const T2 = T * T, T3 = T2 * T;
-  s[b + 3] = a00 + T * a01 + h * a02 + q * (T3 * T2) / 20;
-  s[b + 4] = a01 + T * a02 + q * (T2 * T2) / 8;
-  s[b + 5] = a02 + q * T3 / 6;
-  s[b + 6] = a11 + T * a12 + q * T3 / 3;
-  s[b + 7] = a12 + q * T2 / 2;
-  s[b + 8] = p22 + q * T;
+  s[b] = a00 + T * a01 + h * a02 + q * (T3 * T2) / 20;
+  s[b + 1] = a01 + T * a02 + q * (T2 * T2) / 8;
+  s[b + 2] = a02 + q * T3 / 6;
+  s[b + 3] = a11 + T * a12 + q * T3 / 3;
+  s[b + 4] = a12 + q * T2 / 2;
+  s[b + 5] = p22 + q * T;
 }
 
-/** Scalar Kalman update of the position (H = [1 0 0]) of the state at s[c..c+8] with innovation nu and variance S. */
-function updatePosition(s: Float64Array, c: number, nu: number, S: number): void {
-  const g0 = s[c + 3], g1 = s[c + 4], g2 = s[c + 5];
-  const inv = 1 / S;
-  s[c] += g0 * inv * nu;
-  s[c + 1] += g1 * inv * nu;
-  s[c + 2] += g2 * inv * nu;
-  s[c + 3] -= g0 * g0 * inv;
-  s[c + 4] -= g0 * g1 * inv;
-  s[c + 5] -= g0 * g2 * inv;
-  s[c + 6] -= g1 * g1 * inv;
-  s[c + 7] -= g1 * g2 * inv;
-  s[c + 8] -= g2 * g2 * inv;
+/** Covariance part of a scalar Kalman update, P ← P − g gᵀ/S, with g = P Hᵀ (g0, g1, g2) and inv = 1/S. */
+function updateCovariance(s: Float64Array, c: number, g0: number, g1: number, g2: number, inv: number): void {
+  s[c] -= g0 * g0 * inv;
+  s[c + 1] -= g0 * g1 * inv;
+  s[c + 2] -= g0 * g2 * inv;
+  s[c + 3] -= g1 * g1 * inv;
+  s[c + 4] -= g1 * g2 * inv;
+  s[c + 5] -= g2 * g2 * inv;
 }
 
-/** Scalar Kalman update of the velocity (H = [0 1 0]) of the state at s[c..c+8] with innovation nu and variance S. */
-function updateVelocity(s: Float64Array, c: number, nu: number, S: number): void {
-  const g0 = s[c + 4], g1 = s[c + 6], g2 = s[c + 7];
-  const inv = 1 / S;
-  s[c] += g0 * inv * nu;
-  s[c + 1] += g1 * inv * nu;
-  s[c + 2] += g2 * inv * nu;
-  s[c + 3] -= g0 * g0 * inv;
-  s[c + 4] -= g0 * g1 * inv;
-  s[c + 5] -= g0 * g2 * inv;
-  s[c + 6] -= g1 * g1 * inv;
-  s[c + 7] -= g1 * g2 * inv;
-  s[c + 8] -= g2 * g2 * inv;
-}
-
-/** RTS backward pass for one axis over the filtered states and covariances f (9 per sample). */
-function smoothBackward(t: Float64Array, f: Float64Array, q: number): RtsAxisResult {
+/**
+ * RTS backward pass for the axes of one covariance group: filtered covariances pf (6 per sample), each
+ * axis's filtered states (3 per sample). The axes' results share their variance columns.
+ */
+function smoothBackward(t: Float64Array, pf: Float64Array, xfs: Float64Array[], q: number): RtsAxisResult[] {
   const n = t.length;
-  const rp = new Float64Array(n), rv = new Float64Array(n), ra = new Float64Array(n);
-  const rpVar = new Float64Array(n), rvVar = new Float64Array(n), raVar = new Float64Array(n);
-  const r: RtsAxisResult = { p: rp, v: rv, a: ra, pVar: rpVar, vVar: rvVar, aVar: raVar };
-  if (n === 0) return r;
+  const nA = xfs.length;
+  const pVar = new Float64Array(n), vVar = new Float64Array(n), aVar = new Float64Array(n);
+  const rp: Float64Array[] = [], rv: Float64Array[] = [], ra: Float64Array[] = [];
+  const res: RtsAxisResult[] = [];
+  for (let u = 0; u < nA; u++) {
+    const r: RtsAxisResult = { p: new Float64Array(n), v: new Float64Array(n), a: new Float64Array(n), pVar, vVar, aVar };
+    res.push(r);
+    rp.push(r.p);
+    rv.push(r.v);
+    ra.push(r.a);
+  }
+  if (n === 0) return res;
   const k0 = n - 1;
-  const e = 9 * k0;
-  let xs0 = f[e], xs1 = f[e + 1], xs2 = f[e + 2];
-  let s00 = f[e + 3], s01 = f[e + 4], s02 = f[e + 5];
-  let s11 = f[e + 6], s12 = f[e + 7], s22 = f[e + 8];
-  rp[k0] = xs0; rv[k0] = xs1; ra[k0] = xs2;
-  rpVar[k0] = s00; rvVar[k0] = s11; raVar[k0] = s22;
+  const e = 6 * k0;
+  let s00 = pf[e], s01 = pf[e + 1], s02 = pf[e + 2];
+  let s11 = pf[e + 3], s12 = pf[e + 4], s22 = pf[e + 5];
+  pVar[k0] = s00; vVar[k0] = s11; aVar[k0] = s22;
+  for (let u = 0; u < nA; u++) {
+    const xf = xfs[u];
+    rp[u][k0] = xf[3 * k0]; rv[u][k0] = xf[3 * k0 + 1]; ra[u][k0] = xf[3 * k0 + 2];
+  }
   for (let k = n - 2; k >= 0; k--) {
     const T = t[k + 1] - t[k];
     const h = 0.5 * T * T;
-    const b = 9 * k;
-    const f0 = f[b], f1 = f[b + 1], f2 = f[b + 2];
-    const p00 = f[b + 3], p01 = f[b + 4], p02 = f[b + 5], p11 = f[b + 6], p12 = f[b + 7], p22 = f[b + 8];
-    // Predicted x and P of step k+1 from the filtered values at k.
-    const xp0 = f0 + T * f1 + h * f2;
-    const xp1 = f1 + T * f2;
-    const xp2 = f2;
+    const b = 6 * k;
+    const p00 = pf[b], p01 = pf[b + 1], p02 = pf[b + 2], p11 = pf[b + 3], p12 = pf[b + 4], p22 = pf[b + 5];
+    // Predicted P of step k+1 from the filtered values at k.
     const a00 = p00 + T * p01 + h * p02;
     const a01 = p01 + T * p11 + h * p12;
     const a02 = p02 + T * p12 + h * p22;
@@ -325,11 +391,15 @@ function smoothBackward(t: Float64Array, f: Float64Array, q: number): RtsAxisRes
     const c20 = (b20 * i00 + b21 * i01 + b22 * i02) * id;
     const c21 = (b20 * i01 + b21 * i11 + b22 * i12) * id;
     const c22 = (b20 * i02 + b21 * i12 + b22 * i22) * id;
-    // State.
-    const d0 = xs0 - xp0, d1 = xs1 - xp1, d2 = xs2 - xp2;
-    xs0 = f0 + c00 * d0 + c01 * d1 + c02 * d2;
-    xs1 = f1 + c10 * d0 + c11 * d1 + c12 * d2;
-    xs2 = f2 + c20 * d0 + c21 * d1 + c22 * d2;
+    // States: x_k|N = x_k|k + C (x_k+1|N − F x_k|k), per axis.
+    for (let u = 0; u < nA; u++) {
+      const xf = xfs[u], p = rp[u], v = rv[u], a = ra[u];
+      const f0 = xf[3 * k], f1 = xf[3 * k + 1], f2 = xf[3 * k + 2];
+      const d0 = p[k + 1] - (f0 + T * f1 + h * f2), d1 = v[k + 1] - (f1 + T * f2), d2 = a[k + 1] - f2;
+      p[k] = f0 + c00 * d0 + c01 * d1 + c02 * d2;
+      v[k] = f1 + c10 * d0 + c11 * d1 + c12 * d2;
+      a[k] = f2 + c20 * d0 + c21 * d1 + c22 * d2;
+    }
     // Covariance: P_f + C (P_s − M) Cᵀ, with D = P_s − M symmetric, E = C D.
     const e00 = s00 - m00, e01 = s01 - m01, e02 = s02 - m02, e11 = s11 - m11, e12 = s12 - m12, e22 = s22 - m22;
     const g00 = c00 * e00 + c01 * e01 + c02 * e02;
@@ -347,8 +417,7 @@ function smoothBackward(t: Float64Array, f: Float64Array, q: number): RtsAxisRes
     s11 = p11 + g10 * c10 + g11 * c11 + g12 * c12;
     s12 = p12 + g10 * c20 + g11 * c21 + g12 * c22;
     s22 = p22 + g20 * c20 + g21 * c21 + g22 * c22;
-    rp[k] = xs0; rv[k] = xs1; ra[k] = xs2;
-    rpVar[k] = s00; rvVar[k] = s11; raVar[k] = s22;
+    pVar[k] = s00; vVar[k] = s11; aVar[k] = s22;
   }
-  return r;
+  return res;
 }
