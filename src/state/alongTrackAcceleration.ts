@@ -37,8 +37,8 @@ export interface AlongTrackInput {
  */
 export function smoothAlongTrackAcceleration(inp: AlongTrackInput, speedJerkPsd = DEFAULT_SPEED_JERK_PSD): { accN: Float64Array; accE: Float64Array } {
   const n = inp.t.length;
-  const accN = Float64Array.from(inp.accN);
-  const accE = Float64Array.from(inp.accE);
+  const accN = inp.accN.slice();
+  const accE = inp.accE.slice();
   const { velN, velE, windN, windE, velSigmaMs } = inp;
   // Horizontal airspeed, and the same as the smoother's measurement (NaN where it has no variance).
   const Vh = new Float64Array(n);

@@ -193,7 +193,7 @@ export function reconstructState(log: FlightLog, opts: StateOptions = {}): Fligh
   // vector, pitch = flight-path angle, bank = pseudo-roll about the air vector). The lubber line lies in
   // the symmetry plane, which holds both the air vector and the lift, so the angle of attack does not move
   // the reading (PHYSICS.md §1.1); a logged pitch (nose attitude) replaces γ below.
-  const cardPitchDeg = Float64Array.from(air.flightPathDeg);
+  const cardPitchDeg = air.flightPathDeg.slice();
   if (logged.pitchDeg) for (let j = 0; j < n; j++) if (Number.isFinite(logged.pitchDeg[j])) cardPitchDeg[j] = logged.pitchDeg[j];
 
   // 7. Where the log has heading / attitude / TAS, they are used; how far they disagree is reported.

@@ -147,36 +147,41 @@ function smoothOneSegment(c: TrackColumns, s0: number, s1: number, id: number, p
   const az = vertical ? r.axes[2] : undefined;
   const short = m < MIN_SEGMENT_FIXES;
   if (short) out.shortSegments.push(id);
+  out.posRejected.set(r.posRejected, s0);
+  out.posSpike.set(r.posSpike, s0);
+  out.posInflated.set(r.posInflated, s0);
+  out.velRejected.set(r.velRejected, s0);
   const g = new Float64Array(3);
+  const { lat, lon, altM, velN, velE, velD, accN, accE, accD, accSigmaMs2, velSigmaMs } = out;
+  const xp = ax.p, yp = ay.p, zp = az ? az.p : pDfill;
+  const xv = ax.v, yv = ay.v, xa = ax.a, ya = ay.a;
+  const [r0, r1, r2, r3, r4, r5, r6, r7, r8] = rRef;
+  const [ox, oy, oz] = oRef;
   for (let j = 0; j < m; j++) {
     const i = s0 + j;
-    out.posRejected[i] = r.posRejected[j];
-    out.posSpike[i] = r.posSpike[j];
-    out.posInflated[i] = r.posInflated[j];
-    out.velRejected[i] = r.velRejected[j];
-    const qN = ax.p[j], qE = ay.p[j], qD = az ? az.p[j] : pDfill[j];
+    const qN = xp[j], qE = yp[j], qD = zp[j];
     // ECEF = origin + Rrefᵀ · p.
-    const x = oRef[0] + rRef[0] * qN + rRef[3] * qE + rRef[6] * qD;
-    const y = oRef[1] + rRef[1] * qN + rRef[4] * qE + rRef[7] * qD;
-    const z = oRef[2] + rRef[2] * qN + rRef[5] * qE + rRef[8] * qD;
+    const x = ox + r0 * qN + r3 * qE + r6 * qD;
+    const y = oy + r1 * qN + r4 * qE + r7 * qD;
+    const z = oz + r2 * qN + r5 * qE + r8 * qD;
     if (short) {
       ecefToGeodeticInto(x, y, z, g, 0);
     } else {
       ecefToGeodeticNedInto(x, y, z, g, 0, ri, 0);
     }
-    out.lat[i] = g[0];
-    out.lon[i] = g[1];
-    out.altM[i] = vertical ? g[2] : NaN;
+    lat[i] = g[0];
+    lon[i] = g[1];
+    altM[i] = vertical ? g[2] : NaN;
     if (short) continue;
-    rotateNedBetweenInto(rRef, 0, ri, 0, ax.v[j], ay.v[j], az ? az.v[j] : 0, tmp, 0);
-    out.velN[i] = tmp[0];
-    out.velE[i] = tmp[1];
-    out.velD[i] = tmp[2];
-    rotateNedBetweenInto(rRef, 0, ri, 0, ax.a[j], ay.a[j], az ? az.a[j] : 0, tmp, 0);
-    out.accN[i] = tmp[0];
-    out.accE[i] = tmp[1];
-    out.accD[i] = tmp[2];
-    out.accSigmaMs2[i] = Math.sqrt(0.5 * (ax.aVar[j] + ay.aVar[j]));
-    out.velSigmaMs[i] = Math.sqrt(0.5 * (ax.vVar[j] + ay.vVar[j]));
+    rotateNedBetweenInto(rRef, 0, ri, 0, xv[j], yv[j], az ? az.v[j] : 0, tmp, 0);
+    velN[i] = tmp[0];
+    velE[i] = tmp[1];
+    velD[i] = tmp[2];
+    rotateNedBetweenInto(rRef, 0, ri, 0, xa[j], ya[j], az ? az.a[j] : 0, tmp, 0);
+    accN[i] = tmp[0];
+    accE[i] = tmp[1];
+    accD[i] = tmp[2];
+    accSigmaMs2[i] = Math.sqrt(0.5 * (ax.aVar[j] + ay.aVar[j]));
+    velSigmaMs[i] = Math.sqrt(0.5 * (ax.vVar[j] + ay.vVar[j]));
   }
 }
