@@ -111,27 +111,37 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
     else groups.push([j]);
   }
   const nG = groups.length;
-  const rep = groups.map((g) => g[0]);
-  const members = groups.map((g) => Int32Array.from(g));
-  // Filtered states, 3 per sample per axis (p, v, a), and covariances, 6 per sample per group (p00 p01 p02
-  // p11 p12 p22). The filter runs in these buffers: step i predicts from row i − 1 into row i, then
-  // updates row i in place.
-  const xf: Float64Array[] = [];
-  for (let j = 0; j < m; j++) {
-    const x = new Float64Array(3 * n);
-    xf.push(x);
-    for (let i = 0; i < n; i++) if (Number.isFinite(pos[j][i])) { x[0] = pos[j][i]; break; }
-  }
-  const pf: Float64Array[] = [];
+  const gOf = new Int32Array(m); // group of each axis
+  const order = new Int32Array(m); // axes by group, gStart[g] .. gStart[g + 1] − 1 in `order`
+  const gStart = new Int32Array(nG + 1);
   const qg = new Float64Array(nG);
-  for (let g = 0; g < nG; g++) {
-    const P = new Float64Array(6 * n);
-    pf.push(P);
-    qg[g] = axes[rep[g]].jerkPsd;
-    if (n === 0) continue;
-    P[0] = 1e8; // 10 km prior sigma: the first fix decides
-    P[3] = v0Var;
-    P[5] = a0Var;
+  for (let g = 0, u = 0; g < nG; g++) {
+    gStart[g] = u;
+    qg[g] = axes[groups[g][0]].jerkPsd;
+    for (const j of groups[g]) { gOf[j] = g; order[u++] = j; }
+    gStart[g + 1] = u;
+  }
+  // Flat working arrays, so that the loop reads a handful of typed arrays: measurement of axis j at sample
+  // i at i·m + j; filtered state (p, v, a) at 3(i·m + j); filtered covariance of group g (p00 p01 p02 p11
+  // p12 p22) at 6(i·G + g). The filter runs in place: step i predicts from row i − 1 into row i, then
+  // updates row i.
+  const Z = new Float64Array(n * m), ZR = new Float64Array(n * m);
+  const VZ = anyVel ? new Float64Array(n * m) : NO_COLUMN, VR = anyVel ? new Float64Array(n * m) : NO_COLUMN;
+  for (let j = 0; j < m; j++) {
+    const pj = pos[j], rj = posVar[j], vj = vel[j], wj = velVar[j];
+    for (let i = 0, o = j; i < n; i++, o += m) { Z[o] = pj[i]; ZR[o] = rj[i]; }
+    if (anyVel) for (let i = 0, o = j; i < n; i++, o += m) { VZ[o] = vj.length > 0 ? vj[i] : NaN; VR[o] = vj.length > 0 ? wj[i] : NaN; }
+  }
+  const m3 = 3 * m, g6 = 6 * nG;
+  const X = new Float64Array(m3 * n);
+  const P = new Float64Array(g6 * n);
+  for (let j = 0; j < m; j++) for (let i = 0; i < n; i++) if (Number.isFinite(pos[j][i])) { X[3 * j] = pos[j][i]; break; }
+  if (n > 0) {
+    for (let g = 0; g < nG; g++) {
+      P[6 * g] = 1e8; // 10 km prior sigma: the first fix decides
+      P[6 * g + 3] = v0Var;
+      P[6 * g + 5] = a0Var;
+    }
   }
   const posRejected = new Uint8Array(n);
   const posInflated = new Uint8Array(n);
@@ -139,32 +149,27 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
   let run = 0;
 
   for (let i = 0; i < n; i++) {
-    const c = 6 * i, x3 = 3 * i;
+    const zi = m * i, xi = m3 * i, pi = g6 * i;
     if (i > 0) {
       const T = t[i] - t[i - 1];
-      for (let g = 0; g < nG; g++) {
-        if (T > 0) predictCovariance(pf[g], c - 6, c, T, qg[g]);
-        else pf[g].copyWithin(c, c - 6, c);
-      }
-      for (let j = 0; j < m; j++) {
-        if (T > 0) predictState(xf[j], x3 - 3, x3, T);
-        else xf[j].copyWithin(x3, x3 - 3, x3);
+      if (T > 0) {
+        for (let g = 0; g < nG; g++) predictCovariance(P, pi - g6 + 6 * g, pi + 6 * g, T, qg[g]);
+        for (let j = 0; j < m; j++) predictState(X, xi - m3 + 3 * j, xi + 3 * j, T);
+      } else {
+        P.copyWithin(pi, pi - g6, pi);
+        X.copyWithin(xi, xi - m3, xi);
       }
     }
 
     // Position fix, gated jointly over the axes that have a value.
     let d2 = 0;
     let dof = 0;
-    for (let g = 0; g < nG; g++) {
-      const P = pf[g], mem = members[g];
-      for (let u = 0; u < mem.length; u++) {
-        const j = mem[u];
-        const z = pos[j][i];
-        if (!Number.isFinite(z)) continue;
-        const nu = z - xf[j][x3];
-        d2 += (nu * nu) / (P[c] + posVar[j][i]);
-        dof++;
-      }
+    for (let j = 0; j < m; j++) {
+      const z = Z[zi + j];
+      if (!Number.isFinite(z)) continue;
+      const nu = z - X[xi + 3 * j];
+      d2 += (nu * nu) / (P[pi + 6 * gOf[j]] + ZR[zi + j]);
+      dof++;
     }
     if (dof > 0) {
       const limit = CHI2_99[dof];
@@ -185,18 +190,18 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
       }
       if (use) {
         for (let g = 0; g < nG; g++) {
-          const r = rep[g];
-          if (!Number.isFinite(pos[r][i])) continue;
-          const P = pf[g], mem = members[g];
-          const inv = 1 / ((P[c] + posVar[r][i]) * scale);
+          const r = order[gStart[g]];
+          if (!Number.isFinite(Z[zi + r])) continue;
+          const c = pi + 6 * g;
+          const inv = 1 / ((P[c] + ZR[zi + r]) * scale);
           const g0 = P[c], g1 = P[c + 1], g2 = P[c + 2];
-          for (let u = 0; u < mem.length; u++) {
-            const j = mem[u];
-            const x = xf[j];
-            const nu = pos[j][i] - x[x3];
-            x[x3] += g0 * inv * nu;
-            x[x3 + 1] += g1 * inv * nu;
-            x[x3 + 2] += g2 * inv * nu;
+          for (let u = gStart[g]; u < gStart[g + 1]; u++) {
+            const j = order[u];
+            const x = xi + 3 * j;
+            const nu = Z[zi + j] - X[x];
+            X[x] += g0 * inv * nu;
+            X[x + 1] += g1 * inv * nu;
+            X[x + 2] += g2 * inv * nu;
           }
           updateCovariance(P, c, g0, g1, g2, inv);
         }
@@ -207,35 +212,30 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
     if (!anyVel) continue;
     d2 = 0;
     dof = 0;
-    for (let g = 0; g < nG; g++) {
-      const P = pf[g], mem = members[g];
-      for (let u = 0; u < mem.length; u++) {
-        const j = mem[u];
-        const vz = vel[j];
-        if (vz.length === 0 || !Number.isFinite(vz[i])) continue;
-        const nu = vz[i] - xf[j][x3 + 1];
-        d2 += (nu * nu) / (P[c + 3] + velVar[j][i]);
-        dof++;
-      }
+    for (let j = 0; j < m; j++) {
+      const vz = VZ[zi + j];
+      if (!Number.isFinite(vz)) continue;
+      const nu = vz - X[xi + 3 * j + 1];
+      d2 += (nu * nu) / (P[pi + 6 * gOf[j] + 3] + VR[zi + j]);
+      dof++;
     }
     if (dof > 0) {
       if (gate && d2 > CHI2_99[dof]) {
         velRejected[i] = 1;
       } else {
         for (let g = 0; g < nG; g++) {
-          const r = rep[g];
-          const vr = vel[r];
-          if (vr.length === 0 || !Number.isFinite(vr[i])) continue;
-          const P = pf[g], mem = members[g];
-          const inv = 1 / (P[c + 3] + velVar[r][i]);
+          const r = order[gStart[g]];
+          if (!Number.isFinite(VZ[zi + r])) continue;
+          const c = pi + 6 * g;
+          const inv = 1 / (P[c + 3] + VR[zi + r]);
           const g0 = P[c + 1], g1 = P[c + 3], g2 = P[c + 4];
-          for (let u = 0; u < mem.length; u++) {
-            const j = mem[u];
-            const x = xf[j];
-            const nu = vel[j][i] - x[x3 + 1];
-            x[x3] += g0 * inv * nu;
-            x[x3 + 1] += g1 * inv * nu;
-            x[x3 + 2] += g2 * inv * nu;
+          for (let u = gStart[g]; u < gStart[g + 1]; u++) {
+            const j = order[u];
+            const x = xi + 3 * j;
+            const nu = VZ[zi + j] - X[x + 1];
+            X[x] += g0 * inv * nu;
+            X[x + 1] += g1 * inv * nu;
+            X[x + 2] += g2 * inv * nu;
           }
           updateCovariance(P, c, g0, g1, g2, inv);
         }
@@ -245,8 +245,8 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
 
   const out: RtsAxisResult[] = new Array(m);
   for (let g = 0; g < nG; g++) {
-    const mem = members[g];
-    const res = smoothBackward(t, pf[g], Array.from(mem, (j) => xf[j]), qg[g]);
+    const mem = order.subarray(gStart[g], gStart[g + 1]);
+    const res = smoothBackward(t, P, g6, 6 * g, X, m3, mem, qg[g]);
     for (let u = 0; u < mem.length; u++) out[mem[u]] = res[u];
   }
   const posSpike = new Uint8Array(n);
@@ -324,14 +324,16 @@ function updateCovariance(s: Float64Array, c: number, g0: number, g1: number, g2
 }
 
 /**
- * RTS backward pass for the axes of one covariance group: filtered covariances pf (6 per sample), each
- * axis's filtered states (3 per sample). The axes' results share their variance columns.
+ * RTS backward pass for the axes of one covariance group: filtered covariances in P (row stride pS, this
+ * group at offset pO), filtered states in X (row stride xS, axis j at 3j). The axes' results share their
+ * variance columns.
  */
-function smoothBackward(t: Float64Array, pf: Float64Array, xfs: Float64Array[], q: number): RtsAxisResult[] {
+function smoothBackward(t: Float64Array, P: Float64Array, pS: number, pO: number, X: Float64Array, xS: number, axesOf: Int32Array, q: number): RtsAxisResult[] {
   const n = t.length;
-  const nA = xfs.length;
+  const nA = axesOf.length;
   const pVar = new Float64Array(n), vVar = new Float64Array(n), aVar = new Float64Array(n);
   const rp: Float64Array[] = [], rv: Float64Array[] = [], ra: Float64Array[] = [];
+  const xo = new Int32Array(nA); // offset of each axis's state in a row of X
   const res: RtsAxisResult[] = [];
   for (let u = 0; u < nA; u++) {
     const r: RtsAxisResult = { p: new Float64Array(n), v: new Float64Array(n), a: new Float64Array(n), pVar, vVar, aVar };
@@ -339,22 +341,23 @@ function smoothBackward(t: Float64Array, pf: Float64Array, xfs: Float64Array[], 
     rp.push(r.p);
     rv.push(r.v);
     ra.push(r.a);
+    xo[u] = 3 * axesOf[u];
   }
   if (n === 0) return res;
   const k0 = n - 1;
-  const e = 6 * k0;
-  let s00 = pf[e], s01 = pf[e + 1], s02 = pf[e + 2];
-  let s11 = pf[e + 3], s12 = pf[e + 4], s22 = pf[e + 5];
+  const e = pS * k0 + pO;
+  let s00 = P[e], s01 = P[e + 1], s02 = P[e + 2];
+  let s11 = P[e + 3], s12 = P[e + 4], s22 = P[e + 5];
   pVar[k0] = s00; vVar[k0] = s11; aVar[k0] = s22;
   for (let u = 0; u < nA; u++) {
-    const xf = xfs[u];
-    rp[u][k0] = xf[3 * k0]; rv[u][k0] = xf[3 * k0 + 1]; ra[u][k0] = xf[3 * k0 + 2];
+    const x = xS * k0 + xo[u];
+    rp[u][k0] = X[x]; rv[u][k0] = X[x + 1]; ra[u][k0] = X[x + 2];
   }
   for (let k = n - 2; k >= 0; k--) {
     const T = t[k + 1] - t[k];
     const h = 0.5 * T * T;
-    const b = 6 * k;
-    const p00 = pf[b], p01 = pf[b + 1], p02 = pf[b + 2], p11 = pf[b + 3], p12 = pf[b + 4], p22 = pf[b + 5];
+    const b = pS * k + pO;
+    const p00 = P[b], p01 = P[b + 1], p02 = P[b + 2], p11 = P[b + 3], p12 = P[b + 4], p22 = P[b + 5];
     // Predicted P of step k+1 from the filtered values at k.
     const a00 = p00 + T * p01 + h * p02;
     const a01 = p01 + T * p11 + h * p12;
@@ -393,8 +396,9 @@ function smoothBackward(t: Float64Array, pf: Float64Array, xfs: Float64Array[], 
     const c22 = (b20 * i02 + b21 * i12 + b22 * i22) * id;
     // States: x_k|N = x_k|k + C (x_k+1|N − F x_k|k), per axis.
     for (let u = 0; u < nA; u++) {
-      const xf = xfs[u], p = rp[u], v = rv[u], a = ra[u];
-      const f0 = xf[3 * k], f1 = xf[3 * k + 1], f2 = xf[3 * k + 2];
+      const p = rp[u], v = rv[u], a = ra[u];
+      const x = xS * k + xo[u];
+      const f0 = X[x], f1 = X[x + 1], f2 = X[x + 2];
       const d0 = p[k + 1] - (f0 + T * f1 + h * f2), d1 = v[k + 1] - (f1 + T * f2), d2 = a[k + 1] - f2;
       p[k] = f0 + c00 * d0 + c01 * d1 + c02 * d2;
       v[k] = f1 + c10 * d0 + c11 * d1 + c12 * d2;
