@@ -147,6 +147,7 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
   const posInflated = new Uint8Array(n);
   const velRejected = new Uint8Array(n);
   let run = 0;
+  const invS = new Float64Array(nG); // 1/S of the current fix, per group
 
   for (let i = 0; i < n; i++) {
     const zi = m * i, xi = m3 * i, pi = g6 * i;
@@ -161,14 +162,19 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
       }
     }
 
-    // Position fix, gated jointly over the axes that have a value.
+    // Position fix, gated jointly over the axes that have a value. 1/S once per group (the axes of a
+    // group have the same S); d² = Σ ν²·(1/S) differs from Σ ν²/S by an ulp at most.
+    for (let g = 0; g < nG; g++) {
+      const r = order[gStart[g]];
+      invS[g] = 1 / (P[pi + 6 * g] + ZR[zi + r]);
+    }
     let d2 = 0;
     let dof = 0;
     for (let j = 0; j < m; j++) {
       const z = Z[zi + j];
       if (!Number.isFinite(z)) continue;
       const nu = z - X[xi + 3 * j];
-      d2 += (nu * nu) / (P[pi + 6 * gOf[j]] + ZR[zi + j]);
+      d2 += nu * nu * invS[gOf[j]];
       dof++;
     }
     if (dof > 0) {
@@ -193,7 +199,7 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
           const r = order[gStart[g]];
           if (!Number.isFinite(Z[zi + r])) continue;
           const c = pi + 6 * g;
-          const inv = 1 / ((P[c] + ZR[zi + r]) * scale);
+          const inv = scale === 1 ? invS[g] : 1 / ((P[c] + ZR[zi + r]) * scale);
           const g0 = P[c], g1 = P[c + 1], g2 = P[c + 2];
           for (let u = gStart[g]; u < gStart[g + 1]; u++) {
             const j = order[u];
@@ -210,13 +216,17 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
 
     // Velocity measurement, gated jointly, never inflated.
     if (!anyVel) continue;
+    for (let g = 0; g < nG; g++) {
+      const r = order[gStart[g]];
+      invS[g] = 1 / (P[pi + 6 * g + 3] + VR[zi + r]);
+    }
     d2 = 0;
     dof = 0;
     for (let j = 0; j < m; j++) {
       const vz = VZ[zi + j];
       if (!Number.isFinite(vz)) continue;
       const nu = vz - X[xi + 3 * j + 1];
-      d2 += (nu * nu) / (P[pi + 6 * gOf[j] + 3] + VR[zi + j]);
+      d2 += nu * nu * invS[gOf[j]];
       dof++;
     }
     if (dof > 0) {
@@ -227,7 +237,7 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
           const r = order[gStart[g]];
           if (!Number.isFinite(VZ[zi + r])) continue;
           const c = pi + 6 * g;
-          const inv = 1 / (P[c + 3] + VR[zi + r]);
+          const inv = invS[g];
           const g0 = P[c + 1], g1 = P[c + 3], g2 = P[c + 4];
           for (let u = gStart[g]; u < gStart[g + 1]; u++) {
             const j = order[u];
