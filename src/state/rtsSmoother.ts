@@ -125,9 +125,11 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
   // i at i·m + j; filtered state (p, v, a) at 3(i·m + j); filtered covariance of group g (p00 p01 p02 p11
   // p12 p22) at 6(i·G + g). The filter runs in place: step i predicts from row i − 1 into row i, then
   // updates row i.
-  const Z = new Float64Array(n * m), ZR = new Float64Array(n * m);
-  const VZ = anyVel ? new Float64Array(n * m) : NO_COLUMN, VR = anyVel ? new Float64Array(n * m) : NO_COLUMN;
-  for (let j = 0; j < m; j++) {
+  // One axis (the along-track speed) is flat already: its columns are used as they are.
+  const flat = m === 1;
+  const Z = flat ? pos[0] : new Float64Array(n * m), ZR = flat ? posVar[0] : new Float64Array(n * m);
+  const VZ = anyVel ? (flat ? vel[0] : new Float64Array(n * m)) : NO_COLUMN, VR = anyVel ? (flat ? velVar[0] : new Float64Array(n * m)) : NO_COLUMN;
+  for (let j = 0; j < m && !flat; j++) {
     const pj = pos[j], rj = posVar[j], vj = vel[j], wj = velVar[j];
     for (let i = 0, o = j; i < n; i++, o += m) { Z[o] = pj[i]; ZR[o] = rj[i]; }
     if (anyVel) for (let i = 0, o = j; i < n; i++, o += m) { VZ[o] = vj.length > 0 ? vj[i] : NaN; VR[o] = vj.length > 0 ? wj[i] : NaN; }
