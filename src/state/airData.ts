@@ -93,29 +93,30 @@ export function computeAirData(inp: AirDataInput, opts: AirDataOptions = {}): Ai
   };
   const alpha = aoaDeg * DEG;
   const g = G0_MS2;
+  const { velN, velE, velD, accN, accE, accD, windN, windE } = inp;
+  const { gsMs, trackDegTrue, tasMs, headingDegTrue, bankDeg, pitchDeg, flightPathDeg, turnRateDps, accelLongMs2, lowSpeed } = out;
   for (let i = 0; i < n; i++) {
-    const vN = inp.velN[i], vE = inp.velE[i], vD = inp.velD[i];
-    const gs = Math.hypot(vN, vE);
-    out.gsMs[i] = gs;
-    out.trackDegTrue[i] = gs >= MIN_TRACK_GROUND_SPEED_MS ? deg360(Math.atan2(vE, vN)) : NaN;
-    const aN = inp.accN[i], aE = inp.accE[i], aD = inp.accD[i];
-    const uN = vN - inp.windN[i], uE = vE - inp.windE[i], uD = vD;
+    const vN = velN[i], vE = velE[i], vD = velD[i];
+    const gs = Math.sqrt(vN * vN + vE * vE);
+    gsMs[i] = gs;
+    trackDegTrue[i] = gs >= MIN_TRACK_GROUND_SPEED_MS ? deg360(Math.atan2(vE, vN)) : NaN;
+    const aN = accN[i], aE = accE[i], aD = accD[i];
+    const uN = vN - windN[i], uE = vE - windE[i], uD = vD;
     const uh2 = uN * uN + uE * uE;
     const uh = Math.sqrt(uh2);
     const tas = Math.sqrt(uh2 + uD * uD);
-    out.tasMs[i] = tas;
+    tasMs[i] = tas;
     if (!(tas >= minAirspeedMs && gs >= minGroundSpeedMs) || !(uh > 0)) {
-      out.lowSpeed[i] = Number.isFinite(tas) && Number.isFinite(gs) ? 1 : 0;
-      out.headingDegTrue[i] = NaN;
-      out.bankDeg[i] = NaN;
-      out.pitchDeg[i] = NaN;
-      out.flightPathDeg[i] = NaN;
-      out.turnRateDps[i] = NaN;
-      out.accelLongMs2[i] = NaN;
+      lowSpeed[i] = Number.isFinite(tas) && Number.isFinite(gs) ? 1 : 0;
+      headingDegTrue[i] = NaN;
+      bankDeg[i] = NaN;
+      pitchDeg[i] = NaN;
+      flightPathDeg[i] = NaN;
+      turnRateDps[i] = NaN;
+      accelLongMs2[i] = NaN;
       continue;
     }
-    const psi = Math.atan2(uE, uN);
-    out.headingDegTrue[i] = deg360(psi);
+    headingDegTrue[i] = deg360(Math.atan2(uE, uN));
     // Wind axes: x_w along v_a; y_w = unit(e_z × x_w) = (−uE, uN, 0)/|u_h|; z_w = x_w × y_w.
     const xN = uN / tas, xE = uE / tas, xD = uD / tas;
     const yN = -uE / uh, yE = uN / uh; // yD = 0
@@ -123,15 +124,18 @@ export function computeAirData(inp: AirDataInput, opts: AirDataOptions = {}): Ai
     const fN = aN, fE = aE, fD = aD - g; // specific force f = a − g e_z
     const fy = fN * yN + fE * yE;
     const fz = fN * zN + fE * zE + fD * zD;
-    const phi = Math.atan2(fy, -fz);
-    out.bankDeg[i] = phi * RAD;
-    out.turnRateDps[i] = ((uN * aE - uE * aN) / uh2) * RAD;
+    bankDeg[i] = Math.atan2(fy, -fz) * RAD;
+    turnRateDps[i] = ((uN * aE - uE * aN) / uh2) * RAD;
     const gamma = Math.atan2(-uD, uh);
-    out.flightPathDeg[i] = gamma * RAD;
-    const theta = gamma + alpha * Math.cos(phi);
-    out.pitchDeg[i] = theta * RAD;
+    flightPathDeg[i] = gamma * RAD;
+    // cos φ = −f_z/|(f_y, f_z)| and (cos ψ, sin ψ) = (u_N, u_E)/|u_h| without the angles' trigonometry;
+    // a zero specific force (free fall) has φ = atan2(±0, ∓0): 0 or π by the sign of the zero, as atan2 has it.
+    const fyz = Math.sqrt(fy * fy + fz * fz);
+    const cosPhi = fyz > 0 ? -fz / fyz : fyz === 0 ? (Object.is(fz, 0) ? -1 : 1) : NaN;
+    const theta = gamma + alpha * cosPhi;
+    pitchDeg[i] = theta * RAD;
     const ct = Math.cos(theta);
-    out.accelLongMs2[i] = aN * ct * Math.cos(psi) + aE * ct * Math.sin(psi) - aD * Math.sin(theta);
+    accelLongMs2[i] = aN * ct * (uN / uh) + aE * ct * (uE / uh) - aD * Math.sin(theta);
   }
   return out;
 }

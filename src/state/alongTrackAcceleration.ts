@@ -37,17 +37,22 @@ export interface AlongTrackInput {
  */
 export function smoothAlongTrackAcceleration(inp: AlongTrackInput, speedJerkPsd = DEFAULT_SPEED_JERK_PSD): { accN: Float64Array; accE: Float64Array } {
   const n = inp.t.length;
-  const accN = Float64Array.from(inp.accN);
-  const accE = Float64Array.from(inp.accE);
+  const accN = inp.accN.slice();
+  const accE = inp.accE.slice();
+  const { velN, velE, windN, windE, velSigmaMs } = inp;
+  // Horizontal airspeed, and the same as the smoother's measurement (NaN where it has no variance).
+  const Vh = new Float64Array(n);
   const V = new Float64Array(n);
   const varV = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    const uN = inp.velN[i] - inp.windN[i];
-    const uE = inp.velE[i] - inp.windE[i];
-    V[i] = Math.hypot(uN, uE);
-    const s = inp.velSigmaMs[i];
-    varV[i] = Number.isFinite(s) && s > 0 ? s * s : NaN;
-    if (!Number.isFinite(varV[i])) V[i] = NaN;
+    const uN = velN[i] - windN[i];
+    const uE = velE[i] - windE[i];
+    const h = Math.sqrt(uN * uN + uE * uE);
+    Vh[i] = h;
+    const s = velSigmaMs[i];
+    const ok = Number.isFinite(s) && s > 0;
+    varV[i] = ok ? s * s : NaN;
+    V[i] = ok ? h : NaN;
   }
   const starts = inp.segmentStarts;
   for (let k = 0; k < starts.length; k++) {
@@ -58,16 +63,15 @@ export function smoothAlongTrackAcceleration(inp: AlongTrackInput, speedJerkPsd 
     const dVdt = r.axes[0].v;
     for (let j = 0; j < i1 - i0; j++) {
       const i = i0 + j;
-      const uN = inp.velN[i] - inp.windN[i];
-      const uE = inp.velE[i] - inp.windE[i];
-      const h = Math.hypot(uN, uE);
-      if (!(h > 1) || !Number.isFinite(dVdt[j]) || !Number.isFinite(inp.accN[i]) || !Number.isFinite(inp.accE[i])) continue;
-      const xN = uN / h;
-      const xE = uE / h;
+      const h = Vh[i];
+      const aN = inp.accN[i], aE = inp.accE[i], dv = dVdt[j];
+      if (!(h > 1) || !Number.isFinite(dv) || !Number.isFinite(aN) || !Number.isFinite(aE)) continue;
+      const xN = (velN[i] - windN[i]) / h;
+      const xE = (velE[i] - windE[i]) / h;
       // ŷ = (−xE, xN): right of the air vector.
-      const across = -inp.accN[i] * xE + inp.accE[i] * xN;
-      accN[i] = dVdt[j] * xN - across * xE;
-      accE[i] = dVdt[j] * xE + across * xN;
+      const across = -aN * xE + aE * xN;
+      accN[i] = dv * xN - across * xE;
+      accE[i] = dv * xE + across * xN;
     }
   }
   return { accN, accE };

@@ -69,7 +69,8 @@ export function geometricCircleFit(
     let s = 0;
     for (let i = i0; i < i1; i++) {
       if (!(Number.isFinite(x[i]) && Number.isFinite(y[i]))) continue;
-      const e = Math.hypot(x[i] - a, y[i] - b) - rr;
+      const dx = x[i] - a, dy = y[i] - b;
+      const e = Math.sqrt(dx * dx + dy * dy) - rr;
       s += e * e;
     }
     return s;
@@ -119,7 +120,7 @@ function normalEquations(
   for (let i = i0; i < i1; i++) {
     if (!(Number.isFinite(x[i]) && Number.isFinite(y[i]))) continue;
     const dx = x[i] - cx, dy = y[i] - cy;
-    const d = Math.hypot(dx, dy);
+    const d = Math.sqrt(dx * dx + dy * dy);
     if (!(d > 0)) continue;
     const j0 = -dx / d, j1 = -dy / d, j2 = -1;
     const e = d - r;

@@ -77,14 +77,15 @@ export function loggedAttitude(
 
 /** Median and 95th percentile of |a − b| over rows where both are finite (angles wrapped to (−180, 180] when `angular`). */
 export function disagreement(a: Float64Array, b: Float64Array, angular: boolean): { median: number; p95: number; n: number } {
-  const d: number[] = [];
+  const all = new Float64Array(a.length);
+  let k = 0;
   for (let i = 0; i < a.length; i++) {
     if (!(Number.isFinite(a[i]) && Number.isFinite(b[i]))) continue;
     let x = a[i] - b[i];
     if (angular) x -= 360 * Math.round(x / 360);
-    d.push(Math.abs(x));
+    all[k++] = Math.abs(x);
   }
-  d.sort((x, y) => x - y);
+  const d = all.subarray(0, k).sort(); // numeric order (typed-array sort); no NaN here
   if (d.length === 0) return { median: NaN, p95: NaN, n: 0 };
   return { median: d[d.length >> 1], p95: d[Math.min(d.length - 1, Math.floor(0.95 * d.length))], n: d.length };
 }

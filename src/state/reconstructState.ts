@@ -79,12 +79,14 @@ export function reconstructState(log: FlightLog, opts: StateOptions = {}): Fligh
   const warnings: LogWarning[] = [];
 
   // 1. Rows with a usable time and position, in time order.
-  const keep: number[] = [];
+  const keepAll = new Int32Array(log.t.length);
+  let nKeep = 0;
   const noPosLines: number[] = [];
   const backLines: number[] = [];
   let lastT = -Infinity;
-  for (let i = 0; i < log.t.length; i++) {
-    const t = log.t[i], la = log.lat[i], lo = log.lon[i];
+  const logT = log.t, logLat = log.lat, logLon = log.lon;
+  for (let i = 0; i < logT.length; i++) {
+    const t = logT[i], la = logLat[i], lo = logLon[i];
     if (!(Number.isFinite(t) && Number.isFinite(la) && Number.isFinite(lo) && Math.abs(la) <= 90 && Math.abs(lo) <= 360)) {
       noPosLines.push(log.line[i]);
       continue;
@@ -94,14 +96,16 @@ export function reconstructState(log: FlightLog, opts: StateOptions = {}): Fligh
       continue;
     }
     lastT = t;
-    keep.push(i);
+    keepAll[nKeep++] = i;
   }
   if (noPosLines.length > 0) warnings.push({ code: 'state-no-position', message: `${noPosLines.length} record(s) without a usable time or position were left out`, lines: noPosLines.slice(0, 100), count: noPosLines.length });
   if (backLines.length > 0) warnings.push({ code: 'state-time-backwards', message: `${backLines.length} record(s) earlier than the record before them were left out`, lines: backLines.slice(0, 100), count: backLines.length });
-  const rows = Int32Array.from(keep);
+  const rows = keepAll.slice(0, nKeep);
   const n = rows.length;
+  const everyRow = n === logT.length; // rows[j] === j: a column is copied as it is
   const pick = (col: Float64Array | undefined): Float64Array | undefined => {
     if (!col) return undefined;
+    if (everyRow) return col.slice();
     const out = new Float64Array(n);
     for (let j = 0; j < n; j++) out[j] = col[rows[j]];
     return out;
@@ -171,20 +175,25 @@ export function reconstructState(log: FlightLog, opts: StateOptions = {}): Fligh
 
   // Heading 1-sigma from the wind covariance across the air vector and the velocity sigma.
   const headingSigmaDeg = new Float64Array(n);
-  for (let j = 0; j < n; j++) {
-    const uN = sm.velN[j] - wind.windN[j], uE = sm.velE[j] - wind.windE[j];
-    const vh2 = uN * uN + uE * uE;
-    // Unit vector across the air vector: (−uE, uN)/|u|.
-    const across = (uE * uE * wind.covNN[j] - 2 * uN * uE * wind.covNE[j] + uN * uN * wind.covEE[j]) / vh2;
-    const sv = sm.velSigmaMs[j];
-    headingSigmaDeg[j] = Number.isFinite(air.headingDegTrue[j]) ? Math.sqrt((across + sv * sv) / vh2) * RAD : NaN;
+  {
+    const { velN, velE, velSigmaMs } = sm;
+    const { windN, windE, covNN, covNE, covEE } = wind;
+    const heading = air.headingDegTrue;
+    for (let j = 0; j < n; j++) {
+      const uN = velN[j] - windN[j], uE = velE[j] - windE[j];
+      const vh2 = uN * uN + uE * uE;
+      // Unit vector across the air vector: (−uE, uN)/|u|.
+      const across = (uE * uE * covNN[j] - 2 * uN * uE * covNE[j] + uN * uN * covEE[j]) / vh2;
+      const sv = velSigmaMs[j];
+      headingSigmaDeg[j] = Number.isFinite(heading[j]) ? Math.sqrt((across + sv * sv) / vh2) * RAD : NaN;
+    }
   }
 
   // The card's geometry: with no logged attitude the body axes are the wind axes (nose along the air
   // vector, pitch = flight-path angle, bank = pseudo-roll about the air vector). The lubber line lies in
   // the symmetry plane, which holds both the air vector and the lift, so the angle of attack does not move
   // the reading (PHYSICS.md §1.1); a logged pitch (nose attitude) replaces γ below.
-  const cardPitchDeg = Float64Array.from(air.flightPathDeg);
+  const cardPitchDeg = air.flightPathDeg.slice();
   if (logged.pitchDeg) for (let j = 0; j < n; j++) if (Number.isFinite(logged.pitchDeg[j])) cardPitchDeg[j] = logged.pitchDeg[j];
 
   // 7. Where the log has heading / attitude / TAS, they are used; how far they disagree is reported.

@@ -33,7 +33,10 @@ export interface RtsOptions {
   accPriorSigmaMs2?: number;
 }
 
-/** Smoothed state of one axis: p [m], v [m/s], a [m/s²] and their marginal variances. */
+/**
+ * Smoothed state of one axis: p [m], v [m/s], a [m/s²] and their marginal variances. Axes whose covariances
+ * are the same (same jerk PSD, variances and missing values) share one set of variance columns: read only.
+ */
 export interface RtsAxisResult {
   p: Float64Array;
   v: Float64Array;
@@ -87,40 +90,93 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
     if (ax.pos.length !== n || ax.posVar.length !== n) throw new OptionError('rtsSmoothWhiteJerk', 'position columns must have the length of t');
     if (ax.vel && (ax.vel.length !== n || !ax.velVar || ax.velVar.length !== n)) throw new OptionError('rtsSmoothWhiteJerk', 'velocity columns must have the length of t');
   }
-  // Filtered state (3 per sample) and covariance (6 per sample: p00 p01 p02 p11 p12 p22) per axis.
-  const xf: Float64Array[] = [];
-  const pf: Float64Array[] = [];
-  const cur = new Float64Array(9 * m); // working x (3) + P (6) per axis
+  // Plain arrays of the columns, so that the loops below read them without looking at axis objects.
+  const pos: Float64Array[] = [], posVar: Float64Array[] = [], vel: Float64Array[] = [], velVar: Float64Array[] = [];
+  for (const ax of axes) {
+    pos.push(ax.pos);
+    posVar.push(ax.posVar);
+    vel.push(ax.vel ?? NO_COLUMN);
+    velVar.push(ax.vel ? ax.velVar! : NO_COLUMN);
+  }
+  const anyVel = vel.some((v) => v.length > 0);
+  // Covariance groups: in a linear Kalman filter the covariance depends on the steps, the model and which
+  // measurements were taken with which variances, never on the measured values. Axes with the same jerk
+  // PSD, the same variances and the same missing values (the north and east axes of a track) therefore
+  // have the same covariance at every step, and it is computed once for them (the same operations in the
+  // same order as for each on its own). The gating decisions are joint over all axes anyway.
+  const groups: number[][] = [];
   for (let j = 0; j < m; j++) {
-    xf.push(new Float64Array(3 * n));
-    pf.push(new Float64Array(6 * n));
-    const pos = axes[j].pos;
-    let p0 = 0;
-    for (let i = 0; i < n; i++) if (Number.isFinite(pos[i])) { p0 = pos[i]; break; }
-    const c = 9 * j;
-    cur[c] = p0;
-    cur[c + 3] = 1e8; // 10 km prior sigma: the first fix decides
-    cur[c + 6] = v0Var;
-    cur[c + 8] = a0Var;
+    const g = groups.find((gr) => sameCovariance(axes[gr[0]], axes[j], pos[gr[0]], pos[j], vel[gr[0]], vel[j]));
+    if (g) g.push(j);
+    else groups.push([j]);
+  }
+  const nG = groups.length;
+  const gOf = new Int32Array(m); // group of each axis
+  const order = new Int32Array(m); // axes by group, gStart[g] .. gStart[g + 1] − 1 in `order`
+  const gStart = new Int32Array(nG + 1);
+  const qg = new Float64Array(nG);
+  for (let g = 0, u = 0; g < nG; g++) {
+    gStart[g] = u;
+    qg[g] = axes[groups[g][0]].jerkPsd;
+    for (const j of groups[g]) { gOf[j] = g; order[u++] = j; }
+    gStart[g + 1] = u;
+  }
+  // Flat working arrays, so that the loop reads a handful of typed arrays: measurement of axis j at sample
+  // i at i·m + j; filtered state (p, v, a) at 3(i·m + j); filtered covariance of group g (p00 p01 p02 p11
+  // p12 p22) at 6(i·G + g). The filter runs in place: step i predicts from row i − 1 into row i, then
+  // updates row i.
+  // One axis (the along-track speed) is flat already: its columns are used as they are.
+  const flat = m === 1;
+  const Z = flat ? pos[0] : new Float64Array(n * m), ZR = flat ? posVar[0] : new Float64Array(n * m);
+  const VZ = anyVel ? (flat ? vel[0] : new Float64Array(n * m)) : NO_COLUMN, VR = anyVel ? (flat ? velVar[0] : new Float64Array(n * m)) : NO_COLUMN;
+  for (let j = 0; j < m && !flat; j++) {
+    const pj = pos[j], rj = posVar[j], vj = vel[j], wj = velVar[j];
+    for (let i = 0, o = j; i < n; i++, o += m) { Z[o] = pj[i]; ZR[o] = rj[i]; }
+    if (anyVel) for (let i = 0, o = j; i < n; i++, o += m) { VZ[o] = vj.length > 0 ? vj[i] : NaN; VR[o] = vj.length > 0 ? wj[i] : NaN; }
+  }
+  const m3 = 3 * m, g6 = 6 * nG;
+  const X = new Float64Array(m3 * n);
+  const P = new Float64Array(g6 * n);
+  for (let j = 0; j < m; j++) for (let i = 0; i < n; i++) if (Number.isFinite(pos[j][i])) { X[3 * j] = pos[j][i]; break; }
+  if (n > 0) {
+    for (let g = 0; g < nG; g++) {
+      P[6 * g] = 1e8; // 10 km prior sigma: the first fix decides
+      P[6 * g + 3] = v0Var;
+      P[6 * g + 5] = a0Var;
+    }
   }
   const posRejected = new Uint8Array(n);
   const posInflated = new Uint8Array(n);
   const velRejected = new Uint8Array(n);
   let run = 0;
+  const invS = new Float64Array(nG); // 1/S of the current fix, per group
 
   for (let i = 0; i < n; i++) {
-    const T = i === 0 ? 0 : t[i] - t[i - 1];
-    if (T > 0) for (let j = 0; j < m; j++) predictInPlace(cur, 9 * j, T, axes[j].jerkPsd);
+    const zi = m * i, xi = m3 * i, pi = g6 * i;
+    if (i > 0) {
+      const T = t[i] - t[i - 1];
+      if (T > 0) {
+        for (let g = 0; g < nG; g++) predictCovariance(P, pi - g6 + 6 * g, pi + 6 * g, T, qg[g]);
+        for (let j = 0; j < m; j++) predictState(X, xi - m3 + 3 * j, xi + 3 * j, T);
+      } else {
+        P.copyWithin(pi, pi - g6, pi);
+        X.copyWithin(xi, xi - m3, xi);
+      }
+    }
 
-    // Position fix, gated jointly over the axes that have a value.
+    // Position fix, gated jointly over the axes that have a value. 1/S once per group (the axes of a
+    // group have the same S); d² = Σ ν²·(1/S) differs from Σ ν²/S by an ulp at most.
+    for (let g = 0; g < nG; g++) {
+      const r = order[gStart[g]];
+      invS[g] = 1 / (P[pi + 6 * g] + ZR[zi + r]);
+    }
     let d2 = 0;
     let dof = 0;
     for (let j = 0; j < m; j++) {
-      const z = axes[j].pos[i];
+      const z = Z[zi + j];
       if (!Number.isFinite(z)) continue;
-      const c = 9 * j;
-      const nu = z - cur[c];
-      d2 += (nu * nu) / (cur[c + 3] + axes[j].posVar[i]);
+      const nu = z - X[xi + 3 * j];
+      d2 += nu * nu * invS[gOf[j]];
       dof++;
     }
     if (dof > 0) {
@@ -141,62 +197,80 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
         run = 0;
       }
       if (use) {
-        for (let j = 0; j < m; j++) {
-          const z = axes[j].pos[i];
-          if (!Number.isFinite(z)) continue;
-          const c = 9 * j;
-          const s = (cur[c + 3] + axes[j].posVar[i]) * scale;
-          updateInPlace(cur, c, 0, z - cur[c], s);
+        for (let g = 0; g < nG; g++) {
+          const r = order[gStart[g]];
+          if (!Number.isFinite(Z[zi + r])) continue;
+          const c = pi + 6 * g;
+          const inv = scale === 1 ? invS[g] : 1 / ((P[c] + ZR[zi + r]) * scale);
+          const g0 = P[c], g1 = P[c + 1], g2 = P[c + 2];
+          for (let u = gStart[g]; u < gStart[g + 1]; u++) {
+            const j = order[u];
+            const x = xi + 3 * j;
+            const nu = Z[zi + j] - X[x];
+            X[x] += g0 * inv * nu;
+            X[x + 1] += g1 * inv * nu;
+            X[x + 2] += g2 * inv * nu;
+          }
+          updateCovariance(P, c, g0, g1, g2, inv);
         }
       }
     }
 
     // Velocity measurement, gated jointly, never inflated.
+    if (!anyVel) continue;
+    for (let g = 0; g < nG; g++) {
+      const r = order[gStart[g]];
+      invS[g] = 1 / (P[pi + 6 * g + 3] + VR[zi + r]);
+    }
     d2 = 0;
     dof = 0;
     for (let j = 0; j < m; j++) {
-      const vel = axes[j].vel;
-      if (!vel || !Number.isFinite(vel[i])) continue;
-      const c = 9 * j;
-      const nu = vel[i] - cur[c + 1];
-      d2 += (nu * nu) / (cur[c + 6] + axes[j].velVar![i]);
+      const vz = VZ[zi + j];
+      if (!Number.isFinite(vz)) continue;
+      const nu = vz - X[xi + 3 * j + 1];
+      d2 += nu * nu * invS[gOf[j]];
       dof++;
     }
     if (dof > 0) {
       if (gate && d2 > CHI2_99[dof]) {
         velRejected[i] = 1;
       } else {
-        for (let j = 0; j < m; j++) {
-          const vel = axes[j].vel;
-          if (!vel || !Number.isFinite(vel[i])) continue;
-          const c = 9 * j;
-          updateInPlace(cur, c, 1, vel[i] - cur[c + 1], cur[c + 6] + axes[j].velVar![i]);
+        for (let g = 0; g < nG; g++) {
+          const r = order[gStart[g]];
+          if (!Number.isFinite(VZ[zi + r])) continue;
+          const c = pi + 6 * g;
+          const inv = invS[g];
+          const g0 = P[c + 1], g1 = P[c + 3], g2 = P[c + 4];
+          for (let u = gStart[g]; u < gStart[g + 1]; u++) {
+            const j = order[u];
+            const x = xi + 3 * j;
+            const nu = VZ[zi + j] - X[x + 1];
+            X[x] += g0 * inv * nu;
+            X[x + 1] += g1 * inv * nu;
+            X[x + 2] += g2 * inv * nu;
+          }
+          updateCovariance(P, c, g0, g1, g2, inv);
         }
       }
     }
-
-    for (let j = 0; j < m; j++) {
-      const c = 9 * j;
-      const x = xf[j], P = pf[j];
-      const bx = 3 * i, bp = 6 * i;
-      x[bx] = cur[c]; x[bx + 1] = cur[c + 1]; x[bx + 2] = cur[c + 2];
-      P[bp] = cur[c + 3]; P[bp + 1] = cur[c + 4]; P[bp + 2] = cur[c + 5];
-      P[bp + 3] = cur[c + 6]; P[bp + 4] = cur[c + 7]; P[bp + 5] = cur[c + 8];
-    }
   }
 
-  const out: RtsAxisResult[] = [];
-  for (let j = 0; j < m; j++) out.push(smoothBackward(t, xf[j], pf[j], axes[j].jerkPsd));
+  const out: RtsAxisResult[] = new Array(m);
+  for (let g = 0; g < nG; g++) {
+    const mem = order.subarray(gStart[g], gStart[g + 1]);
+    const res = smoothBackward(t, P, g6, 6 * g, X, m3, mem, qg[g]);
+    for (let u = 0; u < mem.length; u++) out[mem[u]] = res[u];
+  }
   const posSpike = new Uint8Array(n);
   for (let i = 0; i < n; i++) {
     if (posRejected[i] === 0) continue;
     let d2 = 0;
     let dof = 0;
     for (let j = 0; j < m; j++) {
-      const z = axes[j].pos[i];
+      const z = pos[j][i];
       if (!Number.isFinite(z)) continue;
       const r = z - out[j].p[i];
-      d2 += (r * r) / (axes[j].posVar[i] + out[j].pVar[i]);
+      d2 += (r * r) / (posVar[j][i] + out[j].pVar[i]);
       dof++;
     }
     if (dof > 0 && d2 > CHI2_9999[dof]) posSpike[i] = 1;
@@ -204,13 +278,38 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
   return { axes: out, posRejected, posSpike, posInflated, velRejected };
 }
 
-/** Kalman prediction over T [s] of the state at s[c..c+8] = x(3), P(6): x ← F x, P ← F P Fᵀ + Q. */
-function predictInPlace(s: Float64Array, c: number, T: number, q: number): void {
+/** Same jerk PSD, same variance columns (by value) and the same missing positions and velocities. */
+function sameCovariance(a: WhiteJerkAxis, b: WhiteJerkAxis, posA: Float64Array, posB: Float64Array, velA: Float64Array, velB: Float64Array): boolean {
+  if (a.jerkPsd !== b.jerkPsd || velA.length !== velB.length) return false;
+  if (!sameValues(a.posVar, b.posVar)) return false;
+  if (velA.length > 0 && !sameValues(a.velVar!, b.velVar!)) return false;
+  for (let i = 0; i < posA.length; i++) if (Number.isFinite(posA[i]) !== Number.isFinite(posB[i])) return false;
+  for (let i = 0; i < velA.length; i++) if (Number.isFinite(velA[i]) !== Number.isFinite(velB[i])) return false;
+  return true;
+}
+
+function sameValues(a: Float64Array, b: Float64Array): boolean {
+  if (a === b) return true;
+  for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) return false;
+  return true;
+}
+
+/** Stands for an absent velocity column in the loops (length 0). */
+const NO_COLUMN = new Float64Array(0);
+
+/** Kalman prediction of the state over T [s] from x[a..a+2] into x[b..b+2]: x ← F x. */
+function predictState(x: Float64Array, a: number, b: number, T: number): void {
   const h = 0.5 * T * T;
-  const x0 = s[c], x1 = s[c + 1], x2 = s[c + 2];
-  s[c] = x0 + T * x1 + h * x2;
-  s[c + 1] = x1 + T * x2;
-  const p00 = s[c + 3], p01 = s[c + 4], p02 = s[c + 5], p11 = s[c + 6], p12 = s[c + 7], p22 = s[c + 8];
+  const x0 = x[a], x1 = x[a + 1], x2 = x[a + 2];
+  x[b] = x0 + T * x1 + h * x2;
+  x[b + 1] = x1 + T * x2;
+  x[b + 2] = x2;
+}
+
+/** Kalman prediction of the covariance over T [s] from P[a..a+5] into P[b..b+5]: P ← F P Fᵀ + Q. */
+function predictCovariance(s: Float64Array, a: number, b: number, T: number, q: number): void {
+  const h = 0.5 * T * T;
+  const p00 = s[a], p01 = s[a + 1], p02 = s[a + 2], p11 = s[a + 3], p12 = s[a + 4], p22 = s[a + 5];
   // A = F P (rows 0 and 1 change), then A Fᵀ.
   const a00 = p00 + T * p01 + h * p02;
   const a01 = p01 + T * p11 + h * p12;
@@ -218,67 +317,60 @@ function predictInPlace(s: Float64Array, c: number, T: number, q: number): void 
   const a11 = p11 + T * p12;
   const a12 = p12 + T * p22;
   const T2 = T * T, T3 = T2 * T;
-  s[c + 3] = a00 + T * a01 + h * a02 + q * (T3 * T2) / 20;
-  s[c + 4] = a01 + T * a02 + q * (T2 * T2) / 8;
-  s[c + 5] = a02 + q * T3 / 6;
-  s[c + 6] = a11 + T * a12 + q * T3 / 3;
-  s[c + 7] = a12 + q * T2 / 2;
-  s[c + 8] = p22 + q * T;
+  s[b] = a00 + T * a01 + h * a02 + q * (T3 * T2) / 20;
+  s[b + 1] = a01 + T * a02 + q * (T2 * T2) / 8;
+  s[b + 2] = a02 + q * T3 / 6;
+  s[b + 3] = a11 + T * a12 + q * T3 / 3;
+  s[b + 4] = a12 + q * T2 / 2;
+  s[b + 5] = p22 + q * T;
 }
 
-/** Scalar Kalman update of component `k` (0 = p, 1 = v) with innovation nu and innovation variance S. */
-function updateInPlace(s: Float64Array, c: number, k: 0 | 1, nu: number, S: number): void {
-  // Column k of P: P_0k, P_1k, P_2k.
-  const g0 = k === 0 ? s[c + 3] : s[c + 4];
-  const g1 = k === 0 ? s[c + 4] : s[c + 6];
-  const g2 = k === 0 ? s[c + 5] : s[c + 7];
-  const inv = 1 / S;
-  s[c] += g0 * inv * nu;
-  s[c + 1] += g1 * inv * nu;
-  s[c + 2] += g2 * inv * nu;
-  s[c + 3] -= g0 * g0 * inv;
-  s[c + 4] -= g0 * g1 * inv;
-  s[c + 5] -= g0 * g2 * inv;
-  s[c + 6] -= g1 * g1 * inv;
-  s[c + 7] -= g1 * g2 * inv;
-  s[c + 8] -= g2 * g2 * inv;
+/** Covariance part of a scalar Kalman update, P ← P − g gᵀ/S, with g = P Hᵀ (g0, g1, g2) and inv = 1/S. */
+function updateCovariance(s: Float64Array, c: number, g0: number, g1: number, g2: number, inv: number): void {
+  s[c] -= g0 * g0 * inv;
+  s[c + 1] -= g0 * g1 * inv;
+  s[c + 2] -= g0 * g2 * inv;
+  s[c + 3] -= g1 * g1 * inv;
+  s[c + 4] -= g1 * g2 * inv;
+  s[c + 5] -= g2 * g2 * inv;
 }
 
-/** RTS backward pass for one axis over filtered states xf (3n) and covariances pf (6n). */
-function smoothBackward(t: Float64Array, xf: Float64Array, pf: Float64Array, q: number): RtsAxisResult {
+/**
+ * RTS backward pass for the axes of one covariance group: filtered covariances in P (row stride pS, this
+ * group at offset pO), filtered states in X (row stride xS, axis j at 3j). The axes' results share their
+ * variance columns.
+ */
+function smoothBackward(t: Float64Array, P: Float64Array, pS: number, pO: number, X: Float64Array, xS: number, axesOf: Int32Array, q: number): RtsAxisResult[] {
   const n = t.length;
-  const r: RtsAxisResult = {
-    p: new Float64Array(n),
-    v: new Float64Array(n),
-    a: new Float64Array(n),
-    pVar: new Float64Array(n),
-    vVar: new Float64Array(n),
-    aVar: new Float64Array(n),
-  };
-  if (n === 0) return r;
+  const nA = axesOf.length;
+  const pVar = new Float64Array(n), vVar = new Float64Array(n), aVar = new Float64Array(n);
+  const rp: Float64Array[] = [], rv: Float64Array[] = [], ra: Float64Array[] = [];
+  const xo = new Int32Array(nA); // offset of each axis's state in a row of X
+  const res: RtsAxisResult[] = [];
+  for (let u = 0; u < nA; u++) {
+    const r: RtsAxisResult = { p: new Float64Array(n), v: new Float64Array(n), a: new Float64Array(n), pVar, vVar, aVar };
+    res.push(r);
+    rp.push(r.p);
+    rv.push(r.v);
+    ra.push(r.a);
+    xo[u] = 3 * axesOf[u];
+  }
+  if (n === 0) return res;
   const k0 = n - 1;
-  let xs0 = xf[3 * k0], xs1 = xf[3 * k0 + 1], xs2 = xf[3 * k0 + 2];
-  let s00 = pf[6 * k0], s01 = pf[6 * k0 + 1], s02 = pf[6 * k0 + 2];
-  let s11 = pf[6 * k0 + 3], s12 = pf[6 * k0 + 4], s22 = pf[6 * k0 + 5];
-  const store = (k: number): void => {
-    r.p[k] = xs0;
-    r.v[k] = xs1;
-    r.a[k] = xs2;
-    r.pVar[k] = s00;
-    r.vVar[k] = s11;
-    r.aVar[k] = s22;
-  };
-  store(k0);
+  const e = pS * k0 + pO;
+  let s00 = P[e], s01 = P[e + 1], s02 = P[e + 2];
+  let s11 = P[e + 3], s12 = P[e + 4], s22 = P[e + 5];
+  pVar[k0] = s00; vVar[k0] = s11; aVar[k0] = s22;
+  for (let u = 0; u < nA; u++) {
+    const x = xS * k0 + xo[u];
+    rp[u][k0] = X[x]; rv[u][k0] = X[x + 1]; ra[u][k0] = X[x + 2];
+  }
   for (let k = n - 2; k >= 0; k--) {
     const T = t[k + 1] - t[k];
     const h = 0.5 * T * T;
-    const f0 = xf[3 * k], f1 = xf[3 * k + 1], f2 = xf[3 * k + 2];
-    const b = 6 * k;
-    const p00 = pf[b], p01 = pf[b + 1], p02 = pf[b + 2], p11 = pf[b + 3], p12 = pf[b + 4], p22 = pf[b + 5];
-    // Predicted x and P of step k+1 from the filtered values at k.
-    const xp0 = f0 + T * f1 + h * f2;
-    const xp1 = f1 + T * f2;
-    const xp2 = f2;
+    const b = pS * k + pO;
+    const p00 = P[b], p01 = P[b + 1], p02 = P[b + 2], p11 = P[b + 3], p12 = P[b + 4], p22 = P[b + 5];
+    // Predicted P of step k+1 from the filtered values at k.
     const a00 = p00 + T * p01 + h * p02;
     const a01 = p01 + T * p11 + h * p12;
     const a02 = p02 + T * p12 + h * p22;
@@ -314,11 +406,16 @@ function smoothBackward(t: Float64Array, xf: Float64Array, pf: Float64Array, q: 
     const c20 = (b20 * i00 + b21 * i01 + b22 * i02) * id;
     const c21 = (b20 * i01 + b21 * i11 + b22 * i12) * id;
     const c22 = (b20 * i02 + b21 * i12 + b22 * i22) * id;
-    // State.
-    const d0 = xs0 - xp0, d1 = xs1 - xp1, d2 = xs2 - xp2;
-    xs0 = f0 + c00 * d0 + c01 * d1 + c02 * d2;
-    xs1 = f1 + c10 * d0 + c11 * d1 + c12 * d2;
-    xs2 = f2 + c20 * d0 + c21 * d1 + c22 * d2;
+    // States: x_k|N = x_k|k + C (x_k+1|N − F x_k|k), per axis.
+    for (let u = 0; u < nA; u++) {
+      const p = rp[u], v = rv[u], a = ra[u];
+      const x = xS * k + xo[u];
+      const f0 = X[x], f1 = X[x + 1], f2 = X[x + 2];
+      const d0 = p[k + 1] - (f0 + T * f1 + h * f2), d1 = v[k + 1] - (f1 + T * f2), d2 = a[k + 1] - f2;
+      p[k] = f0 + c00 * d0 + c01 * d1 + c02 * d2;
+      v[k] = f1 + c10 * d0 + c11 * d1 + c12 * d2;
+      a[k] = f2 + c20 * d0 + c21 * d1 + c22 * d2;
+    }
     // Covariance: P_f + C (P_s − M) Cᵀ, with D = P_s − M symmetric, E = C D.
     const e00 = s00 - m00, e01 = s01 - m01, e02 = s02 - m02, e11 = s11 - m11, e12 = s12 - m12, e22 = s22 - m22;
     const g00 = c00 * e00 + c01 * e01 + c02 * e02;
@@ -336,7 +433,7 @@ function smoothBackward(t: Float64Array, xf: Float64Array, pf: Float64Array, q: 
     s11 = p11 + g10 * c10 + g11 * c11 + g12 * c12;
     s12 = p12 + g10 * c20 + g11 * c21 + g12 * c22;
     s22 = p22 + g20 * c20 + g21 * c21 + g22 * c22;
-    store(k);
+    pVar[k] = s00; vVar[k] = s11; aVar[k] = s22;
   }
-  return r;
+  return res;
 }

@@ -23,15 +23,46 @@ export interface Segmentation {
 
 /** Median of the positive steps of a non-decreasing time column [s]; NaN when there are none. */
 export function medianPositiveStepS(t: Float64Array): number {
-  const steps: number[] = [];
+  const steps = new Float64Array(Math.max(0, t.length - 1));
+  let k = 0;
   for (let i = 1; i < t.length; i++) {
     const d = t[i] - t[i - 1];
-    if (d > 0) steps.push(d);
+    if (d > 0) steps[k++] = d;
   }
-  if (steps.length === 0) return NaN;
-  const s = Float64Array.from(steps).sort();
-  const m = s.length >> 1;
-  return s.length % 2 === 1 ? s[m] : 0.5 * (s[m - 1] + s[m]);
+  if (k === 0) return NaN;
+  const s = steps.subarray(0, k);
+  const m = k >> 1;
+  const hi = selectInPlace(s, m);
+  if (k % 2 === 1) return hi;
+  // After the selection everything left of m is ≤ s[m]: the lower middle is their maximum.
+  let lo = s[0];
+  for (let i = 1; i < m; i++) if (s[i] > lo) lo = s[i];
+  return 0.5 * (lo + hi);
+}
+
+/**
+ * The k-th smallest value (0-based) of a NaN-free array, reordering it so that a[i] ≤ a[k] for i < k and
+ * a[i] ≥ a[k] for i > k: Hoare's selection (FIND, C. A. R. Hoare, CACM 4(7), 1961) in N. Wirth's form
+ * (Algorithms + Data Structures = Programs, 1976). Expected O(n) instead of a sort's O(n log n).
+ */
+function selectInPlace(a: Float64Array, k: number): number {
+  let l = 0, r = a.length - 1;
+  while (l < r) {
+    const x = a[(l + r) >> 1];
+    let i = l, j = r;
+    do {
+      while (a[i] < x) i++;
+      while (x < a[j]) j--;
+      if (i <= j) {
+        const w = a[i]; a[i] = a[j]; a[j] = w;
+        i++;
+        j--;
+      }
+    } while (i <= j);
+    if (j < k) l = i;
+    if (k < i) r = j;
+  }
+  return a[k];
 }
 
 /**

@@ -1,7 +1,7 @@
 // Smoothing a track segment by segment: positions into the segment's tangent frame, RTS smoother per
 // axis there, then positions back to WGS-84 and velocities/accelerations re-expressed in EACH sample's
 // own NED frame (a tangent plane far from its origin turns north).
-import { ecefToGeodeticInto, geodeticToEcefInto, nedRotationInto, rotateNedBetweenInto } from '../geo/localFrame.js';
+import { ecefToGeodeticInto, ecefToGeodeticNedInto, geodeticToEcefInto, geodeticToEcefNedInto, nedRotationInto, rotateNedBetweenInto } from '../geo/localFrame.js';
 import { DEG } from '../constants.js';
 import { rtsSmoothWhiteJerk, type WhiteJerkAxis } from './rtsSmoother.js';
 
@@ -118,7 +118,10 @@ function smoothOneSegment(c: TrackColumns, s0: number, s1: number, id: number, p
     t[j] = c.t[i] - c.t[s0];
     const hasAlt = Number.isFinite(c.altM[i]);
     if (hasAlt) hFill = c.altM[i];
-    geodeticToEcefInto(c.lat[i], c.lon[i], hFill, e, 0);
+    const gs = useVel ? c.gsMs![i] : NaN, tr = useVel ? c.trackDegTrue![i] : NaN;
+    const hasVel = Number.isFinite(gs) && Number.isFinite(tr) && gs >= 0;
+    if (hasVel) geodeticToEcefNedInto(c.lat[i], c.lon[i], hFill, e, 0, ri, 0);
+    else geodeticToEcefInto(c.lat[i], c.lon[i], hFill, e, 0);
     const dx = e[0] - oRef[0], dy = e[1] - oRef[1], dz = e[2] - oRef[2];
     pN[j] = rRef[0] * dx + rRef[1] * dy + rRef[2] * dz;
     pE[j] = rRef[3] * dx + rRef[4] * dy + rRef[5] * dz;
@@ -128,14 +131,10 @@ function smoothOneSegment(c: TrackColumns, s0: number, s1: number, id: number, p
     const sh = Number.isFinite(acc) && acc > 0 ? Math.min(100, Math.max(0.5, acc)) : NaN;
     varH[j] = Number.isFinite(sh) ? sh * sh : p.hSigmaM * p.hSigmaM;
     varV[j] = Number.isFinite(sh) ? 2.25 * sh * sh : p.vSigmaM * p.vSigmaM;
-    if (useVel) {
-      const gs = c.gsMs![i], tr = c.trackDegTrue![i];
-      if (Number.isFinite(gs) && Number.isFinite(tr) && gs >= 0) {
-        nedRotationInto(c.lat[i], c.lon[i], ri, 0);
-        rotateNedBetweenInto(ri, 0, rRef, 0, gs * Math.cos(tr * DEG), gs * Math.sin(tr * DEG), 0, tmp, 0);
-        vN![j] = tmp[0];
-        vE![j] = tmp[1];
-      }
+    if (hasVel) {
+      rotateNedBetweenInto(ri, 0, rRef, 0, gs * Math.cos(tr * DEG), gs * Math.sin(tr * DEG), 0, tmp, 0);
+      vN![j] = tmp[0];
+      vE![j] = tmp[1];
     }
   }
   const axes: WhiteJerkAxis[] = [
@@ -148,33 +147,41 @@ function smoothOneSegment(c: TrackColumns, s0: number, s1: number, id: number, p
   const az = vertical ? r.axes[2] : undefined;
   const short = m < MIN_SEGMENT_FIXES;
   if (short) out.shortSegments.push(id);
+  out.posRejected.set(r.posRejected, s0);
+  out.posSpike.set(r.posSpike, s0);
+  out.posInflated.set(r.posInflated, s0);
+  out.velRejected.set(r.velRejected, s0);
   const g = new Float64Array(3);
+  const { lat, lon, altM, velN, velE, velD, accN, accE, accD, accSigmaMs2, velSigmaMs } = out;
+  const xp = ax.p, yp = ay.p, zp = az ? az.p : pDfill;
+  const xv = ax.v, yv = ay.v, xa = ax.a, ya = ay.a;
+  const [r0, r1, r2, r3, r4, r5, r6, r7, r8] = rRef;
+  const [ox, oy, oz] = oRef;
   for (let j = 0; j < m; j++) {
     const i = s0 + j;
-    out.posRejected[i] = r.posRejected[j];
-    out.posSpike[i] = r.posSpike[j];
-    out.posInflated[i] = r.posInflated[j];
-    out.velRejected[i] = r.velRejected[j];
-    const qN = ax.p[j], qE = ay.p[j], qD = az ? az.p[j] : pDfill[j];
+    const qN = xp[j], qE = yp[j], qD = zp[j];
     // ECEF = origin + Rrefᵀ · p.
-    const x = oRef[0] + rRef[0] * qN + rRef[3] * qE + rRef[6] * qD;
-    const y = oRef[1] + rRef[1] * qN + rRef[4] * qE + rRef[7] * qD;
-    const z = oRef[2] + rRef[2] * qN + rRef[5] * qE + rRef[8] * qD;
-    ecefToGeodeticInto(x, y, z, g, 0);
-    out.lat[i] = g[0];
-    out.lon[i] = g[1];
-    out.altM[i] = vertical ? g[2] : NaN;
+    const x = ox + r0 * qN + r3 * qE + r6 * qD;
+    const y = oy + r1 * qN + r4 * qE + r7 * qD;
+    const z = oz + r2 * qN + r5 * qE + r8 * qD;
+    if (short) {
+      ecefToGeodeticInto(x, y, z, g, 0);
+    } else {
+      ecefToGeodeticNedInto(x, y, z, g, 0, ri, 0);
+    }
+    lat[i] = g[0];
+    lon[i] = g[1];
+    altM[i] = vertical ? g[2] : NaN;
     if (short) continue;
-    nedRotationInto(g[0], g[1], ri, 0);
-    rotateNedBetweenInto(rRef, 0, ri, 0, ax.v[j], ay.v[j], az ? az.v[j] : 0, tmp, 0);
-    out.velN[i] = tmp[0];
-    out.velE[i] = tmp[1];
-    out.velD[i] = tmp[2];
-    rotateNedBetweenInto(rRef, 0, ri, 0, ax.a[j], ay.a[j], az ? az.a[j] : 0, tmp, 0);
-    out.accN[i] = tmp[0];
-    out.accE[i] = tmp[1];
-    out.accD[i] = tmp[2];
-    out.accSigmaMs2[i] = Math.sqrt(0.5 * (ax.aVar[j] + ay.aVar[j]));
-    out.velSigmaMs[i] = Math.sqrt(0.5 * (ax.vVar[j] + ay.vVar[j]));
+    rotateNedBetweenInto(rRef, 0, ri, 0, xv[j], yv[j], az ? az.v[j] : 0, tmp, 0);
+    velN[i] = tmp[0];
+    velE[i] = tmp[1];
+    velD[i] = tmp[2];
+    rotateNedBetweenInto(rRef, 0, ri, 0, xa[j], ya[j], az ? az.a[j] : 0, tmp, 0);
+    accN[i] = tmp[0];
+    accE[i] = tmp[1];
+    accD[i] = tmp[2];
+    accSigmaMs2[i] = Math.sqrt(0.5 * (ax.aVar[j] + ay.aVar[j]));
+    velSigmaMs[i] = Math.sqrt(0.5 * (ax.vVar[j] + ay.vVar[j]));
   }
 }

@@ -55,28 +55,47 @@ export function blendWindEstimates(estimates: WindEstimate[], t: Float64Array, a
     tMax = Math.max(tMax, t1[k]);
     if (Number.isFinite(e.altM)) { hMin = Math.min(hMin, e.altM); hMax = Math.max(hMax, e.altM); }
   });
+  // Per estimate, one row of 9: t0, t1, height (NaN unless finite), the sample-free part of the weight's denominator
+  // (tr C / 2), wind N, E, covariance NN, NE, EE.
+  const P = new Float64Array(9 * m);
+  for (let k = 0; k < m; k++) {
+    const b = 9 * k;
+    P[b] = t0[k]; P[b + 1] = t1[k]; P[b + 2] = Number.isFinite(h[k]) ? h[k] : NaN; P[b + 3] = 0.5 * (cnn[k] + cee[k]);
+    P[b + 4] = wn[k]; P[b + 5] = we[k]; P[b + 6] = cnn[k]; P[b + 7] = cne[k]; P[b + 8] = cee[k];
+  }
+  const { windN, windE, covNN, covNE, covEE, extrapolated } = out;
+  const hasBand = Number.isFinite(hMin);
+  const aLo = hMin - ALT_EXTRAPOLATION_M, aHi = hMax + ALT_EXTRAPOLATION_M;
+  const tLo = tMin - TIME_EXTRAPOLATION_S, tHi = tMax + TIME_EXTRAPOLATION_S;
+  const end = 9 * m;
   for (let i = 0; i < n; i++) {
-    let sw = 0, sn = 0, se = 0, qnn = 0, qne = 0, qee = 0;
-    for (let k = 0; k < m; k++) {
-      const dt = t[i] < t0[k] ? t0[k] - t[i] : t[i] > t1[k] ? t[i] - t1[k] : 0;
-      const dh = Number.isFinite(altM[i]) && Number.isFinite(h[k]) ? altM[i] - h[k] : 0;
-      const d2 = (dt * WIND_DRIFT_MS_PER_S) ** 2 + (dh * WIND_SHEAR_MS_PER_M) ** 2;
-      const w = 1 / (0.5 * (cnn[k] + cee[k]) + d2 + 1e-12);
-      sw += w;
-      sn += w * wn[k];
-      se += w * we[k];
-      qnn += w * w * (cnn[k] + d2);
-      qne += w * w * cne[k];
-      qee += w * w * (cee[k] + d2);
-    }
-    out.windN[i] = sn / sw;
-    out.windE[i] = se / sw;
-    out.covNN[i] = qnn / (sw * sw);
-    out.covNE[i] = qne / (sw * sw);
-    out.covEE[i] = qee / (sw * sw);
+    const ti = t[i];
     const a = altM[i];
-    const outsideAlt = Number.isFinite(a) && Number.isFinite(hMin) && (a < hMin - ALT_EXTRAPOLATION_M || a > hMax + ALT_EXTRAPOLATION_M);
-    out.extrapolated[i] = t[i] < tMin - TIME_EXTRAPOLATION_S || t[i] > tMax + TIME_EXTRAPOLATION_S || outsideAlt ? 1 : 0;
+    const finiteAlt = Number.isFinite(a);
+    let sw = 0, sn = 0, se = 0, qnn = 0, qne = 0, qee = 0;
+    for (let b = 0; b < end; b += 9) {
+      const t0k = P[b], t1k = P[b + 1], hk = P[b + 2];
+      const dt = ti < t0k ? t0k - ti : ti > t1k ? ti - t1k : 0;
+      const dh = finiteAlt && hk === hk ? a - hk : 0; // hk === hk: a finite height (set NaN above otherwise)
+      const x = dt * WIND_DRIFT_MS_PER_S, y = dh * WIND_SHEAR_MS_PER_M;
+      const d2 = x * x + y * y;
+      const w = 1 / (P[b + 3] + d2 + 1e-12);
+      const ww = w * w;
+      sw += w;
+      sn += w * P[b + 4];
+      se += w * P[b + 5];
+      qnn += ww * (P[b + 6] + d2);
+      qne += ww * P[b + 7];
+      qee += ww * (P[b + 8] + d2);
+    }
+    const sw2 = sw * sw;
+    windN[i] = sn / sw;
+    windE[i] = se / sw;
+    covNN[i] = qnn / sw2;
+    covNE[i] = qne / sw2;
+    covEE[i] = qee / sw2;
+    const outsideAlt = finiteAlt && hasBand && (a < aLo || a > aHi);
+    extrapolated[i] = ti < tLo || ti > tHi || outsideAlt ? 1 : 0;
   }
   return out;
 }

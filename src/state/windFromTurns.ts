@@ -76,10 +76,11 @@ function fitWindow(c: WindFromTurnsInput, w: TurnWindow, minArcDeg: number): Win
   const reject = (reason: TurnFitRejection['reason'], arcDeg: number, detail: string): TurnFitRejection => ({ t0, t1, arcDeg, reason, detail });
   const start = kasaCircleFit(c.velN, c.velE, i0, i1);
   // Median smoother velocity variance as the floor of the residual variance.
-  const vs: number[] = [];
-  for (let i = i0; i < i1; i++) if (Number.isFinite(c.velSigmaMs[i])) vs.push(c.velSigmaMs[i]);
-  vs.sort((a, b) => a - b);
-  const velVar = vs.length > 0 ? vs[vs.length >> 1] ** 2 : 0;
+  const vsAll = new Float64Array(i1 - i0);
+  let nvs = 0;
+  for (let i = i0; i < i1; i++) if (Number.isFinite(c.velSigmaMs[i])) vsAll[nvs++] = c.velSigmaMs[i];
+  const vs = vsAll.subarray(0, nvs).sort();
+  const velVar = nvs > 0 ? vs[nvs >> 1] ** 2 : 0;
   // sigma2 = 1: cov holds (JᵀJ)⁻¹, scaled below.
   const fit = geometricCircleFit(c.velN, c.velE, start, i0, i1, 1);
   if (!(Number.isFinite(fit.cx) && Number.isFinite(fit.r))) return reject('fit-failed', w.trackChangeDeg, 'the circle fit did not converge');
@@ -98,7 +99,7 @@ function fitWindow(c: WindFromTurnsInput, w: TurnWindow, minArcDeg: number): Win
       hi = Math.max(hi, unwrapped);
     }
     prev = a;
-    const tt = c.t[i] - t0, dd = Math.hypot(dx, dy);
+    const tt = c.t[i] - t0, dd = Math.sqrt(dx * dx + dy * dy);
     n++; st += tt; sd += dd; stt += tt * tt; std += tt * dd;
     if (Number.isFinite(c.altM[i])) { altSum += c.altM[i]; altN++; }
   }

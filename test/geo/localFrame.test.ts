@@ -1,12 +1,15 @@
 // Frames against GeographicLib (geographiclib-geodesic 2.2, C. F. F. Karney, J. Geodesy 87, 2013) and
 // against the defining WGS-84 constants (NIMA TR8350.2 table 3.1).
+import fc from 'fast-check';
 import geodesic from 'geographiclib-geodesic';
 import { describe, expect, it } from 'vitest';
 import { ecefToGeodetic, geodeticToEcef } from '../../src/geo/wgs84.js';
 import {
   azimuthOfNedDeg,
   ecefToGeodeticInto,
+  ecefToGeodeticNedInto,
   geodeticToEcefInto,
+  geodeticToEcefNedInto,
   localAzimuthDistance,
   nedOffsetM,
   nedRotationInto,
@@ -120,5 +123,113 @@ describe('azimuthOfNedDeg', () => {
     expect(azimuthOfNedDeg(-1, -1e-18)).toBeCloseTo(180, 9);
     expect(azimuthOfNedDeg(1, -1e-18)).toBeLessThan(360);
     expect(azimuthOfNedDeg(0, 0)).toBeNaN();
+  });
+});
+
+/** The plain definition: φ = atan2(z + e² N(φ) sin φ, p) iterated to its fixed point (from memory; TR8350.2 §4). */
+function fixedPointGeodetic(x: number, y: number, z: number): [number, number, number] {
+  const a = 6378137, f = 1 / 298.257223563, e2 = f * (2 - f);
+  const p = Math.hypot(x, y);
+  let lat = Math.atan2(z, p * (1 - e2));
+  for (let k = 0; k < 30; k++) {
+    const s = Math.sin(lat);
+    lat = Math.atan2(z + (e2 * a * s) / Math.sqrt(1 - e2 * s * s), p);
+  }
+  const s = Math.sin(lat), c = Math.cos(lat);
+  return [lat / (Math.PI / 180), Math.atan2(y, x) / (Math.PI / 180), p * c + z * s - a * Math.sqrt(1 - e2 * s * s)];
+}
+
+describe('ECEF → geodetic by two Bowring steps', () => {
+  it('agrees with the fixed-point iteration run to convergence within 1e-12° and 1e-7 m, −1 km to 20 km, all latitudes', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: -90, max: 90, noNaN: true }),
+        fc.double({ min: -180, max: 180, noNaN: true }),
+        fc.double({ min: -1000, max: 20000, noNaN: true }),
+        (lat, lon, h) => {
+          const e = new Float64Array(3), g = new Float64Array(3);
+          geodeticToEcefInto(lat, lon, h, e, 0);
+          ecefToGeodeticInto(e[0], e[1], e[2], g, 0);
+          const r = fixedPointGeodetic(e[0], e[1], e[2]);
+          expect(Math.abs(g[0] - r[0])).toBeLessThan(1e-12);
+          expect(angErr(g[1], r[1])).toBeLessThan(1e-12);
+          expect(Math.abs(g[2] - r[2])).toBeLessThan(1e-7);
+        },
+      ),
+      { numRuns: 5000, seed: 3 },
+    );
+  });
+  it('gives the poles and the equator exactly: (0, 0, b + 1000) → 90°, 1000 m; (a, 0, 0) → 0°, 0°, 0 m (WGS-84 a, b from TR8350.2)', () => {
+    const g = new Float64Array(3);
+    ecefToGeodeticInto(0, 0, -(6356752.314245 + 1000), g, 0);
+    expect(g[0]).toBe(-90);
+    expect(g[2]).toBeCloseTo(1000, 6);
+    ecefToGeodeticInto(6378137, 0, 0, g, 0);
+    expect(g[0]).toBe(0);
+    expect(g[1]).toBe(0);
+    expect(Math.abs(g[2])).toBeLessThan(1e-9);
+  });
+});
+
+describe('the combined position-and-frame helpers', () => {
+  it('ecefToGeodeticNedInto writes what ecefToGeodeticInto and nedRotationInto write (to 1e-15: sines from the vector, not from degrees)', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: -89.9, max: 89.9, noNaN: true }),
+        fc.double({ min: -180, max: 180, noNaN: true }),
+        fc.double({ min: -500, max: 15000, noNaN: true }),
+        (lat, lon, h) => {
+          const e = new Float64Array(3), g1 = new Float64Array(3), g2 = new Float64Array(3), r1 = new Float64Array(9), r2 = new Float64Array(9);
+          geodeticToEcefInto(lat, lon, h, e, 0);
+          ecefToGeodeticInto(e[0], e[1], e[2], g1, 0);
+          ecefToGeodeticNedInto(e[0], e[1], e[2], g2, 0, r2, 0);
+          expect(Array.from(g2)).toEqual(Array.from(g1));
+          nedRotationInto(g1[0], g1[1], r1, 0);
+          for (let k = 0; k < 9; k++) expect(Math.abs(r2[k] - r1[k])).toBeLessThan(1e-15);
+        },
+      ),
+      { numRuns: 2000, seed: 5 },
+    );
+  });
+  it('geodeticToEcefNedInto writes exactly what geodeticToEcefInto and nedRotationInto write', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: -90, max: 90, noNaN: true }),
+        fc.double({ min: -360, max: 360, noNaN: true }),
+        fc.double({ min: -500, max: 15000, noNaN: true }),
+        (lat, lon, h) => {
+          const e1 = new Float64Array(3), e2 = new Float64Array(3), r1 = new Float64Array(9), r2 = new Float64Array(9);
+          geodeticToEcefInto(lat, lon, h, e1, 0);
+          nedRotationInto(lat, lon, r1, 0);
+          geodeticToEcefNedInto(lat, lon, h, e2, 0, r2, 0);
+          expect(Array.from(e2)).toEqual(Array.from(e1));
+          expect(Array.from(r2)).toEqual(Array.from(r1));
+        },
+      ),
+      { numRuns: 1000, seed: 6 },
+    );
+  });
+});
+
+describe('nedOffsetM with its kept reference frame', () => {
+  it('equals the plain ECEF difference rotated at A (geodeticToEcefInto, nedRotationInto) exactly, whichever A came before', () => {
+    const plain = (la: number, lo: number, ha: number, lb: number, lob: number, hb: number): number[] => {
+      const ea = new Float64Array(3), eb = new Float64Array(3), r = new Float64Array(9);
+      geodeticToEcefInto(la, lo, ha, ea, 0);
+      geodeticToEcefInto(lb, lob, hb, eb, 0);
+      nedRotationInto(la, lo, r, 0);
+      const dx = eb[0] - ea[0], dy = eb[1] - ea[1], dz = eb[2] - ea[2];
+      return [r[0] * dx + r[1] * dy + r[2] * dz, r[3] * dx + r[4] * dy + r[5] * dz, r[6] * dx + r[7] * dy + r[8] * dz];
+    };
+    const pt = fc.tuple(fc.double({ min: -89, max: 89, noNaN: true }), fc.double({ min: -180, max: 180, noNaN: true }), fc.double({ min: -100, max: 3000, noNaN: true }));
+    fc.assert(
+      fc.property(fc.array(fc.tuple(fc.integer({ min: 0, max: 2 }), pt), { minLength: 1, maxLength: 30 }), fc.array(pt, { minLength: 3, maxLength: 3 }), (calls, refs) => {
+        for (const [k, [lb, lob, hb]] of calls) {
+          const [la, lo, ha] = refs[k];
+          expect(nedOffsetM(la, lo, ha, lb, lob, hb)).toEqual(plain(la, lo, ha, lb, lob, hb));
+        }
+      }),
+      { numRuns: 500, seed: 9 },
+    );
   });
 });

@@ -2,6 +2,7 @@
 // pseudo-roll check "a = (0, g tan 20°, 0) heading north → 20.0°" (PHYSICS.md §7, check 31); the wind
 // triangle of KITPLANES "Finding TAS from GPS Data" (PHYSICS.md check 29: TAS 100 kt, wind 20 kt from
 // 270, headings N/E/S/W → GS 102.0/120/102.0/80 kt); flight-path angle γ = atan2(climb, horizontal speed).
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { computeAirData } from '../../src/state/airData.js';
 import { windFromVector, windVectorNe } from '../../src/state/windOption.js';
@@ -95,5 +96,35 @@ describe('low speed', () => {
   });
   it('rejects an angle of attack outside −5..20° with an OptionError', () => {
     expect(() => one([40, 0, 0], [0, 0, 0], [0, 0], 45)).toThrow(/aoaDeg/);
+  });
+});
+
+describe('computeAirData against the angle-by-angle definition', () => {
+  it('matches ψ = atan2, φ = atan2(f·y_w, −f·z_w), θ = γ + α cos φ, accelLong = a·(cos θ cos ψ, cos θ sin ψ, −sin θ) with trigonometry of the angles, to 1e-9', () => {
+    const plain = (v: number[], a: number[], w: number[], aoaDeg: number) => {
+      const uN = v[0] - w[0], uE = v[1] - w[1], uD = v[2];
+      const uh = Math.hypot(uN, uE), tas = Math.hypot(uN, uE, uD);
+      const psi = Math.atan2(uE, uN);
+      const xN = uN / tas, xE = uE / tas, xD = uD / tas, yN = -uE / uh, yE = uN / uh;
+      const zN = -xD * yE, zE = xD * yN, zD = xN * yE - xE * yN;
+      const fy = a[0] * yN + a[1] * yE, fz = a[0] * zN + a[1] * zE + (a[2] - G) * zD;
+      const phi = Math.atan2(fy, -fz);
+      const theta = Math.atan2(-uD, uh) + aoaDeg * D2R * Math.cos(phi);
+      const ct = Math.cos(theta);
+      return { bank: phi / D2R, pitch: theta / D2R, along: a[0] * ct * Math.cos(psi) + a[1] * ct * Math.sin(psi) - a[2] * Math.sin(theta) };
+    };
+    const comp = fc.double({ min: -80, max: 80, noNaN: true });
+    const acc = fc.double({ min: -15, max: 15, noNaN: true });
+    fc.assert(
+      fc.property(fc.tuple(comp, comp, fc.double({ min: -10, max: 10, noNaN: true })), fc.tuple(acc, acc, acc), fc.tuple(fc.double({ min: -20, max: 20, noNaN: true }), fc.double({ min: -20, max: 20, noNaN: true })), fc.double({ min: -5, max: 20, noNaN: true }), (v, a, w, aoa) => {
+        const r = one(v, a, w, aoa);
+        if (r.low) return;
+        const p = plain(v, a, w, aoa);
+        expect(Math.abs(r.bank - p.bank)).toBeLessThan(1e-9);
+        expect(Math.abs(r.pitch - p.pitch)).toBeLessThan(1e-9);
+        expect(Math.abs(r.along - p.along)).toBeLessThan(1e-9);
+      }),
+      { numRuns: 5000, seed: 13 },
+    );
   });
 });

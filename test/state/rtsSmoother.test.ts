@@ -2,6 +2,7 @@
 // linear-Gaussian model, solved densely here (the RTS smoother's defining property: Rauch, Tung & Striebel,
 // AIAA J. 3(8), 1965 — its mean and covariance equal the batch posterior); (2) exact kinematics of a
 // constant-acceleration motion; (3) chi-square quantiles from their closed-form CDFs (PHYSICS.md check 30).
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { CHI2_99, CHI2_9999, rtsSmoothWhiteJerk } from '../../src/state/rtsSmoother.js';
 import { gaussianSource } from './syntheticTurns.js';
@@ -171,5 +172,38 @@ describe('parameters', () => {
     const p = Float64Array.from([0, 1]);
     expect(() => rtsSmoothWhiteJerk(t, [{ pos: p, posVar: p, jerkPsd: 0 }])).toThrow(/jerkPsd/);
     expect(() => rtsSmoothWhiteJerk(t, [{ pos: Float64Array.from([0]), posVar: p, jerkPsd: 1 }])).toThrow(/length/);
+  });
+});
+
+describe('rtsSmoothWhiteJerk with axes sharing one covariance', () => {
+  it('gives, bit for bit, what each axis gives smoothed on its own (no gating: the axes are then independent)', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(fc.double({ min: 0, max: 3, noNaN: true }), fc.double({ min: -500, max: 500, noNaN: true }), fc.double({ min: -500, max: 500, noNaN: true }), fc.double({ min: 0.5, max: 50, noNaN: true }), fc.boolean(), fc.double({ min: -60, max: 60, noNaN: true }), fc.double({ min: -60, max: 60, noNaN: true }), fc.boolean()), { minLength: 1, maxLength: 60 }),
+        fc.double({ min: 0.01, max: 10, noNaN: true }),
+        (rows, q) => {
+          const n = rows.length;
+          const t = new Float64Array(n);
+          for (let i = 1; i < n; i++) t[i] = t[i - 1] + rows[i][0];
+          const col = (f: (r: (typeof rows)[number]) => number): Float64Array => Float64Array.from(rows, f);
+          const miss = (r: (typeof rows)[number]): boolean => r[4];
+          const noVel = (r: (typeof rows)[number]): boolean => r[7];
+          const pa = col((r) => (miss(r) ? NaN : r[1])), pb = col((r) => (miss(r) ? NaN : r[2]));
+          const R = col((r) => r[3]);
+          const va = col((r) => (noVel(r) ? NaN : r[5])), vb = col((r) => (noVel(r) ? NaN : r[6]));
+          const vR = new Float64Array(n).fill(0.09);
+          const A = { pos: pa, posVar: R, vel: va, velVar: vR, jerkPsd: q };
+          const B = { pos: pb, posVar: Float64Array.from(R), vel: vb, velVar: vR, jerkPsd: q };
+          const both = rtsSmoothWhiteJerk(t, [A, B], { gate: false });
+          const a = rtsSmoothWhiteJerk(t, [A], { gate: false }).axes[0];
+          const b = rtsSmoothWhiteJerk(t, [B], { gate: false }).axes[0];
+          for (const k of ['p', 'v', 'a', 'pVar', 'vVar', 'aVar'] as const) {
+            expect(Array.from(both.axes[0][k])).toEqual(Array.from(a[k]));
+            expect(Array.from(both.axes[1][k])).toEqual(Array.from(b[k]));
+          }
+        },
+      ),
+      { numRuns: 500, seed: 17 },
+    );
   });
 });

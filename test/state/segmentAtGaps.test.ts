@@ -1,4 +1,5 @@
 // Gap splitting: the threshold rule max(5 s, 5 × median step) [practice, issue 2] and its consequences.
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { medianPositiveStepS, segmentAtGaps } from '../../src/state/segmentAtGaps.js';
 
@@ -30,5 +31,29 @@ describe('segmentAtGaps', () => {
     expect(segmentAtGaps(new Float64Array(0)).starts.length).toBe(0);
     expect(Array.from(segmentAtGaps(Float64Array.from([7])).segment)).toEqual([0]);
     expect(medianPositiveStepS(Float64Array.from([0, 0, 0, 1, 2]))).toBe(1);
+  });
+});
+
+describe('medianPositiveStepS by selection', () => {
+  it('equals the median of the sorted positive steps (the plain definition) on random time columns with repeats and zero steps', () => {
+    const reference = (t: Float64Array): number => {
+      const d: number[] = [];
+      for (let i = 1; i < t.length; i++) if (t[i] - t[i - 1] > 0) d.push(t[i] - t[i - 1]);
+      if (d.length === 0) return NaN;
+      d.sort((a, b) => a - b);
+      const m = d.length >> 1;
+      return d.length % 2 === 1 ? d[m] : 0.5 * (d[m - 1] + d[m]);
+    };
+    fc.assert(
+      fc.property(
+        fc.array(fc.oneof(fc.constant(0), fc.constant(0.1), fc.constant(1), fc.double({ min: 0, max: 50, noNaN: true })), { minLength: 0, maxLength: 400 }),
+        (steps) => {
+          const t = new Float64Array(steps.length + 1);
+          for (let i = 0; i < steps.length; i++) t[i + 1] = t[i] + steps[i];
+          expect(medianPositiveStepS(t)).toBe(reference(t));
+        },
+      ),
+      { numRuns: 3000, seed: 7 },
+    );
   });
 });
