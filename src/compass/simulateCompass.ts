@@ -184,6 +184,48 @@ function stopAndReadPass(inp: CardInputs, k: Float64Array, readingDeg: Float64Ar
 }
 
 /**
+ * Pass 3, per valid sample: the dynamic reading (gauge heading − χ), its flags (stop, weak directive force, swinging)
+ * and `unreliable`; the reading with deviation; the error and its split (static part from the turn-only reading
+ * sTurnDeg, see the file comment). Returns the number of samples where the deviation card gave no usable value.
+ */
+function errorSplitPass(
+  inp: CardInputs, chi: Float64Array, onStop: Uint8Array, sTurnDeg: Float64Array, profile: CompassProfile,
+  deviation: ((compassDeg: number) => number) | undefined, tr: TraceColumns,
+): number {
+  const { n, valid, psiU } = inp;
+  const { staticDeg, dynamicDeg, readingDeg, errorDeg, errDipTurnDeg, errDipAccelDeg, errLagSwirlDeg, errDeviationDeg } = tr;
+  const { directiveRatio, unreliable, headingMagDeg, flags } = tr;
+  const minDirective = profile.unreliableDirectiveRatio;
+  const unreliableMask = COMPASS_FLAG_WEAK_DIRECTIVE | COMPASS_FLAG_ON_STOP | COMPASS_FLAG_BLACKOUT | COMPASS_FLAG_NO_INPUT
+    | COMPASS_FLAG_SWINGING | (profile.cautionZoneUnreliable ? COMPASS_FLAG_CAUTION : 0);
+  let badDeviation = 0;
+  for (let i = 0; i < n; i++) {
+    if (valid[i] === 0) continue;
+    const hMag = headingMagDeg[i], sDeg = staticDeg[i], sTurn = sTurnDeg[i];
+    const dipTurn = wrap180(sTurn - hMag), dipAccel = wrap180(sDeg - sTurn);
+    errDipTurnDeg[i] = dipTurn;
+    errDipAccelDeg[i] = dipAccel;
+    const dyn = wrap360((psiU[i] - chi[i]) * RAD);
+    dynamicDeg[i] = dyn;
+    let fl = flags[i];
+    if (onStop[i] === 1) fl |= COMPASS_FLAG_ON_STOP;
+    if (!(directiveRatio[i] >= minDirective)) fl |= COMPASS_FLAG_WEAK_DIRECTIVE;
+    if (Math.abs(wrap180(dyn - sDeg)) > SWINGING_CARD_DEG) fl |= COMPASS_FLAG_SWINGING;
+    flags[i] = fl;
+    unreliable[i] = (fl & unreliableMask) !== 0 ? 1 : 0;
+    const rd = deviation ? applyDeviationDeg(dyn, deviation) : dyn;
+    if (deviation && !Number.isFinite(rd)) badDeviation++;
+    readingDeg[i] = rd;
+    const e = wrap180(rd - hMag);
+    const eDev = wrap180(rd - dyn);
+    errorDeg[i] = e;
+    errDeviationDeg[i] = eDev;
+    errLagSwirlDeg[i] = e - dipTurn - dipAccel - eDev;
+  }
+  return badDeviation;
+}
+
+/**
  * Simulates the compass card along a flight.
  *
  * @param state reconstructed flight (uses t, headingDegTrue, pitchDeg, bankDeg, accN/E/D, turnRateDps, segment)
@@ -216,8 +258,7 @@ export function simulateCompass(
     errDeviationDeg: new Float64Array(n), tiltDeg: new Float64Array(n), directiveRatio: new Float64Array(n),
     unreliable: new Uint8Array(n), headingMagDeg: new Float64Array(n), flags: new Uint8Array(n),
   };
-  const { staticDeg, dynamicDeg, readingDeg, errorDeg, errDipTurnDeg, errDipAccelDeg, errLagSwirlDeg, errDeviationDeg } = tr;
-  const { tiltDeg, directiveRatio, unreliable, headingMagDeg, flags } = tr;
+  const { staticDeg, tiltDeg, directiveRatio, flags } = tr;
   const inp: CardInputs = {
     n, t: state.t, segment: state.segment, valid: new Uint8Array(n),
     xb: new Float64Array(3 * n), zb: new Float64Array(3 * n), gapp: new Float64Array(3 * n), kFree: new Float64Array(3 * n),
@@ -225,7 +266,6 @@ export function simulateCompass(
     eps: magnetPerPendulosityFromResidualDip(profile.residualDipDeg, profile.refHorizontalNt, profile.refVerticalNt),
     cosLim: Math.cos(profile.tiltLimitDeg * DEG), sinLim: Math.sin(profile.tiltLimitDeg * DEG),
   };
-  const { valid, psiU } = inp;
   const minDirective = profile.unreliableDirectiveRatio;
   const chi = new Float64Array(n), onStop = new Uint8Array(n); // outputs of the dynamic pass
 
@@ -237,42 +277,12 @@ export function simulateCompass(
   freeAxesPass(inp, gTurn, gTurn);
   const sTurnDeg = new Float64Array(n);
   stopAndReadPass(inp, gTurn, sTurnDeg, null, minDirective);
-  for (let i = 0; i < n; i++) {
-    if (valid[i] === 0) continue;
-    errDipTurnDeg[i] = wrap180(sTurnDeg[i] - headingMagDeg[i]);
-    errDipAccelDeg[i] = wrap180(staticDeg[i] - sTurnDeg[i]);
-  }
 
-  // ---- pass 2: card dynamics, then the dynamic reading and its flags ----
+  // ---- pass 2: card dynamics ----
   integrateCardDynamics(inp, profile, maxStepS, { chi, tiltDeg, directiveRatio, onStop });
-  const unreliableMask = COMPASS_FLAG_WEAK_DIRECTIVE | COMPASS_FLAG_ON_STOP | COMPASS_FLAG_BLACKOUT | COMPASS_FLAG_NO_INPUT
-    | COMPASS_FLAG_SWINGING | (profile.cautionZoneUnreliable ? COMPASS_FLAG_CAUTION : 0);
-  for (let i = 0; i < n; i++) {
-    if (valid[i] === 0) continue;
-    // The card reads gauge heading − χ.
-    const dyn = wrap360((psiU[i] - chi[i]) * RAD);
-    dynamicDeg[i] = dyn;
-    let fl = flags[i];
-    if (onStop[i] === 1) fl |= COMPASS_FLAG_ON_STOP;
-    if (!(directiveRatio[i] >= minDirective)) fl |= COMPASS_FLAG_WEAK_DIRECTIVE;
-    if (Math.abs(wrap180(dyn - staticDeg[i])) > SWINGING_CARD_DEG) fl |= COMPASS_FLAG_SWINGING;
-    flags[i] = fl;
-    unreliable[i] = (fl & unreliableMask) !== 0 ? 1 : 0;
-  }
 
-  // ---- pass 3: deviation and the error split ----
-  let badDeviation = 0;
-  for (let i = 0; i < n; i++) {
-    if (valid[i] === 0) continue;
-    const dyn = dynamicDeg[i];
-    const rd = deviation ? applyDeviationDeg(dyn, deviation) : dyn;
-    if (deviation && !Number.isFinite(rd)) badDeviation++;
-    readingDeg[i] = rd;
-    const e = wrap180(rd - headingMagDeg[i]);
-    errorDeg[i] = e;
-    errDeviationDeg[i] = wrap180(rd - dyn);
-    errLagSwirlDeg[i] = e - errDipTurnDeg[i] - errDipAccelDeg[i] - errDeviationDeg[i];
-  }
+  // ---- pass 3: dynamic reading, its flags, deviation and the error split ----
+  const badDeviation = errorSplitPass(inp, chi, onStop, sTurnDeg, profile, deviation, tr);
 
   const warnings: LogWarning[] = [];
   if (missing > 0) {
@@ -289,6 +299,7 @@ export function simulateCompass(
       count: badDeviation,
     });
   }
+  const { dynamicDeg, readingDeg, errorDeg, errDipTurnDeg, errDipAccelDeg, errLagSwirlDeg, errDeviationDeg, unreliable, headingMagDeg } = tr;
   return {
     n, staticDeg, dynamicDeg, readingDeg, errorDeg, errDipTurnDeg, errDipAccelDeg, errLagSwirlDeg, errDeviationDeg,
     tiltDeg, directiveRatio, unreliable, headingMagDeg, flags, warnings,
