@@ -84,7 +84,7 @@ export function detectTurns(state: FlightState, opts: TurnDetectionOptions = DEF
   let prevEnd = -1;
   let i = 0;
   while (i < n) {
-    if (!usable(i) || !(Math.abs(rate[i]) >= enter)) {
+    if (!(Math.abs(rate[i]) >= enter) || !usable(i)) { // the cheap rate test first: most rows are not turning
       i++;
       continue;
     }

@@ -42,7 +42,7 @@ export function detectSpeedEpisodes(
   const out: SpeedEpisode[] = [];
   let i = 0;
   while (i < n) {
-    if (!ok(i) || !(Math.abs(acc[i]) >= thr / 2)) {
+    if (!(Math.abs(acc[i]) >= thr / 2) || !ok(i)) { // the cheap acceleration test first: most rows are steady
       i++;
       continue;
     }

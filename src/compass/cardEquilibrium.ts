@@ -34,11 +34,14 @@ export interface CardEquilibrium {
   kN: number;
   kE: number;
   kD: number;
+  /** The reading's two atan2 arguments from {@link readCardAxisParts}: ψc = atan2(readSin, readCos). */
+  readSin: number;
+  readCos: number;
 }
 
 /** A fresh result holder for {@link cardEquilibrium} (allocate once, outside loops). */
 export function newCardEquilibrium(): CardEquilibrium {
-  return { readingDeg: NaN, bpNt: NaN, directiveRatio: NaN, tiltDeg: NaN, onStop: false, kN: NaN, kE: NaN, kD: NaN };
+  return { readingDeg: NaN, bpNt: NaN, directiveRatio: NaN, tiltDeg: NaN, onStop: false, kN: NaN, kE: NaN, kD: NaN, readSin: NaN, readCos: NaN };
 }
 
 /**
@@ -85,50 +88,80 @@ export function freeCardAxis(
   out: CardEquilibrium,
 ): boolean {
   const gl = Math.sqrt(gN * gN + gE * gE + gD * gD);
-  if (!(gl > 0) || !Number.isFinite(gl)) {
-    out.kN = NaN; out.kE = NaN; out.kD = NaN;
+  if (!(gl > 0 && gl < Infinity)) {
+    out.kN = out.kE = out.kD = NaN;
     return false;
   }
   const uN = gN / gl, uE = gE / gl, uD = gD / gl;
-  out.kN = uN; out.kE = uE; out.kD = uD;
+  let kN = uN, kE = uE, kD = uD;
   if (eps > 0) {
     const bg = xNt * uN + yNt * uE + zNt * uD;
     const pN = xNt - bg * uN, pE = yNt - bg * uE, pD = zNt - bg * uD;
     const be = Math.sqrt(pN * pN + pE * pE + pD * pD);
-    // Field along apparent gravity: the magnet has no preferred azimuth and no tilting couple is defined.
-    if (!(be > 1e-9 * Math.abs(bg))) return true;
-    const ta = (-eps * bg) / (gl + eps * be); // tan α; |α| < 90° since the denominator is positive
-    const ca = 1 / Math.sqrt(1 + ta * ta), sa = (ta * ca) / be;
-    out.kN = ca * uN + sa * pN; out.kE = ca * uE + sa * pE; out.kD = ca * uD + sa * pD;
+    // Unless the field lies along apparent gravity (then the magnet has no preferred azimuth and no tilting couple
+    // is defined, and k = ĝ):
+    if (be > 1e-9 * Math.abs(bg)) {
+      const ta = (-eps * bg) / (gl + eps * be); // tan α; |α| < 90° since the denominator is positive
+      const ca = 1 / Math.sqrt(1 + ta * ta), sa = (ta * ca) / be;
+      kN = ca * uN + sa * pN; kE = ca * uE + sa * pE; kD = ca * uD + sa * pD;
+    }
   }
+  out.kN = kN; out.kE = kE; out.kD = kD;
   return true;
 }
 
 /**
  * Puts the card axis in `out` onto the cone of half-angle tiltLimitDeg about the unit bowl axis z_b if it lies
  * outside it, keeping its direction of tilt (PHYSICS §1.5: "clamp k onto the cone ... toward g_app").
- * Sets out.onStop and out.tiltDeg (angle between the resulting k and z_b).
+ * Sets out.onStop and, unless withTiltDeg is false (callers that need only the axis skip the atan2), out.tiltDeg
+ * (angle between the resulting k and z_b).
  */
 // Method: tilt-stop clamp onto a cone (PHYSICS.md §1.5).
-export function clampCardAxisToStop(zbN: number, zbE: number, zbD: number, cosLimit: number, sinLimit: number, out: CardEquilibrium): void {
-  const c = out.kN * zbN + out.kE * zbE + out.kD * zbD;
+export function clampCardAxisToStop(
+  zbN: number, zbE: number, zbD: number, cosLimit: number, sinLimit: number, out: CardEquilibrium, withTiltDeg = true,
+): void {
+  const kN = out.kN, kE = out.kE, kD = out.kD;
+  const c = kN * zbN + kE * zbE + kD * zbD;
   // Perpendicular part of k relative to z_b: its length is sin(tilt).
-  const qN = out.kN - c * zbN, qE = out.kE - c * zbE, qD = out.kD - c * zbD;
+  const qN = kN - c * zbN, qE = kE - c * zbE, qD = kD - c * zbD;
   const ql = Math.sqrt(qN * qN + qE * qE + qD * qD);
-  if (c < cosLimit && ql > 0) {
+  const onStop = c < cosLimit;
+  out.onStop = onStop;
+  if (onStop && ql > 0) {
     out.kN = cosLimit * zbN + (sinLimit * qN) / ql;
     out.kE = cosLimit * zbE + (sinLimit * qE) / ql;
     out.kD = cosLimit * zbD + (sinLimit * qD) / ql;
-    out.onStop = true;
-    out.tiltDeg = Math.atan2(sinLimit, cosLimit) * RAD;
-  } else if (c < cosLimit) {
-    // Apparent gravity exactly along −z_b (inverted): no direction to clamp toward; leave k, flag the stop.
-    out.onStop = true;
-    out.tiltDeg = Math.atan2(ql, c) * RAD;
-  } else {
-    out.onStop = false;
+    if (withTiltDeg) out.tiltDeg = Math.atan2(sinLimit, cosLimit) * RAD;
+  } else if (withTiltDeg) {
+    // (On the stop here only with apparent gravity exactly along −z_b, inverted: no direction to clamp toward, k is left.)
     out.tiltDeg = Math.atan2(ql, c) * RAD;
   }
+}
+
+/**
+ * The reading of the card whose axis is out.kN/kE/kD, for lubber (nose) axis x_b (any length) and field B [nT], as
+ * its two atan2 arguments: ψc = atan2(readSin, readCos), readSin = k·(B × x_b), readCos = B·x_b − (B·k)(k·x_b)
+ * (PHYSICS §1.1), for callers that combine ψc with another angle algebraically. Sets out.readSin, out.readCos,
+ * out.bpNt and out.directiveRatio = |B_p| / H; returns false when the card has no directive force
+ * (|B_p| ≤ 1e-9 |B|: the reading is undefined).
+ */
+// Method: projection of B and of the lubber line on the card plane (PHYSICS.md §1.1).
+export function readCardAxisParts(
+  xbN: number, xbE: number, xbD: number, xNt: number, yNt: number, zNt: number, out: CardEquilibrium,
+): boolean {
+  const kN = out.kN, kE = out.kE, kD = out.kD;
+  const bk = xNt * kN + yNt * kE + zNt * kD;
+  const b2 = xNt * xNt + yNt * yNt + zNt * zNt;
+  const bp = Math.sqrt(Math.max(0, b2 - bk * bk));
+  // k · (B × x_b)
+  const cN = yNt * xbD - zNt * xbE;
+  const cE = zNt * xbN - xNt * xbD;
+  const cD = xNt * xbE - yNt * xbN;
+  out.readSin = kN * cN + kE * cE + kD * cD;
+  out.readCos = xNt * xbN + yNt * xbE + zNt * xbD - bk * (kN * xbN + kE * xbE + kD * xbD);
+  out.bpNt = bp;
+  out.directiveRatio = bp / Math.sqrt(xNt * xNt + yNt * yNt);
+  return bp > 1e-9 * Math.sqrt(b2);
 }
 
 /**
@@ -138,25 +171,37 @@ export function clampCardAxisToStop(zbN: number, zbE: number, zbD: number, cosLi
  */
 // Method: projection of B and of the lubber line on the card plane (PHYSICS.md §1.1).
 export function readCardAxis(xbN: number, xbE: number, xbD: number, xNt: number, yNt: number, zNt: number, out: CardEquilibrium): void {
-  const kN = out.kN, kE = out.kE, kD = out.kD;
-  const bk = xNt * kN + yNt * kE + zNt * kD;
-  const b2 = xNt * xNt + yNt * yNt + zNt * zNt;
-  const bp = Math.sqrt(Math.max(0, b2 - bk * bk));
-  // k · (B × x_b)
-  const cN = yNt * xbD - zNt * xbE;
-  const cE = zNt * xbN - xNt * xbD;
-  const cD = xNt * xbE - yNt * xbN;
-  const sinPart = kN * cN + kE * cE + kD * cD;
-  const cosPart = xNt * xbN + yNt * xbE + zNt * xbD - bk * (kN * xbN + kE * xbE + kD * xbD);
-  out.bpNt = bp;
-  out.directiveRatio = bp / Math.sqrt(xNt * xNt + yNt * yNt);
-  if (!(bp > 1e-9 * Math.sqrt(b2))) {
+  if (!readCardAxisParts(xbN, xbE, xbD, xNt, yNt, zNt, out)) {
     out.readingDeg = NaN;
     return;
   }
-  let r = Math.atan2(sinPart, cosPart) * RAD;
+  let r = Math.atan2(out.readSin, out.readCos) * RAD;
   if (r < 0) r += 360;
   out.readingDeg = r >= 360 ? 0 : r + 0;
+}
+
+/**
+ * Static reading of a pendulous compass card for given body axes (the core of {@link cardEquilibrium}, for callers
+ * that have the axes already): x_b, z_b unit nose and floor axes in NED, G = (gN, gE, gD) apparent gravity [m/s²],
+ * field B [nT] true NED, ε = magnetPerPendulosity, tilt cone cos/sin of its half-angle (cosLimit −2: no stop).
+ * withTiltDeg false skips out.tiltDeg. Any non-finite input gives NaN results and onStop false; returns out.
+ */
+// Method: static equilibrium of a pendulous magnet card, general vector form (PHYSICS.md §1.1).
+export function cardEquilibriumOfAxes(
+  xbN: number, xbE: number, xbD: number, zbN: number, zbE: number, zbD: number,
+  gN: number, gE: number, gD: number,
+  xNt: number, yNt: number, zNt: number,
+  eps: number, cosLimit: number, sinLimit: number,
+  out: CardEquilibrium, withTiltDeg = true,
+): CardEquilibrium {
+  out.onStop = false;
+  if (!freeCardAxis(gN, gE, gD, xNt, yNt, zNt, eps, out) || !Number.isFinite(xbN + zbN + xNt + yNt + zNt)) {
+    out.readingDeg = NaN; out.bpNt = NaN; out.directiveRatio = NaN; out.tiltDeg = NaN;
+    return out;
+  }
+  clampCardAxisToStop(zbN, zbE, zbD, cosLimit, sinLimit, out, withTiltDeg);
+  readCardAxis(xbN, xbE, xbD, xNt, yNt, zNt, out);
+  return out;
 }
 
 /**
@@ -184,17 +229,10 @@ export function cardEquilibrium(
   const ps = headingDegTrue * DEG, th = pitchDeg * DEG, ph = bankDeg * DEG;
   const cps = Math.cos(ps), sps = Math.sin(ps), cth = Math.cos(th), sth = Math.sin(th), cph = Math.cos(ph), sph = Math.sin(ph);
   // Body axes in NED from (heading, pitch, bank), aerospace z-y-x Euler sequence.
-  const xbN = cth * cps, xbE = cth * sps, xbD = -sth;
-  const zbN = cps * sth * cph + sps * sph, zbE = sps * sth * cph - cps * sph, zbD = cth * cph;
-  out.onStop = false;
-  if (!freeCardAxis(-accNMs2, -accEMs2, G0_MS2 - accDMs2, xNt, yNt, zNt, opts.magnetPerPendulosityMs2PerNt, out)
-    || !Number.isFinite(xbN + zbN + xNt + yNt + zNt)) {
-    out.readingDeg = NaN; out.bpNt = NaN; out.directiveRatio = NaN; out.tiltDeg = NaN;
-    return out;
-  }
   const lim = opts.tiltLimitDeg;
-  if (lim < 180) clampCardAxisToStop(zbN, zbE, zbD, Math.cos(lim * DEG), Math.sin(lim * DEG), out);
-  else clampCardAxisToStop(zbN, zbE, zbD, -2, 0, out); // never clamps; computes the tilt
-  readCardAxis(xbN, xbE, xbD, xNt, yNt, zNt, out);
-  return out;
+  return cardEquilibriumOfAxes(
+    cth * cps, cth * sps, -sth, cps * sth * cph + sps * sph, sps * sth * cph - cps * sph, cth * cph,
+    -accNMs2, -accEMs2, G0_MS2 - accDMs2, xNt, yNt, zNt, opts.magnetPerPendulosityMs2PerNt,
+    lim < 180 ? Math.cos(lim * DEG) : -2, lim < 180 ? Math.sin(lim * DEG) : 0, out, // cos −2: never clamps, computes the tilt
+  );
 }

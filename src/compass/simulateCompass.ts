@@ -35,10 +35,8 @@ import {
   type CompassTrace,
 } from './compassTrace.js';
 import { validateCompassProfile, type CompassProfile } from './compassProfile.js';
-import {
-  cardEquilibrium, clampCardAxisToStop, freeCardAxis, magnetPerPendulosityFromResidualDip, newCardEquilibrium,
-  readCardAxis, type CardOptions,
-} from './cardEquilibrium.js';
+import { clampCardAxisToStop, freeCardAxis, magnetPerPendulosityFromResidualDip, newCardEquilibrium, readCardAxis } from './cardEquilibrium.js';
+import { integrateCardDynamics, wrapPiRad, type CardInputs } from './cardDynamics.js';
 
 const DEG = Math.PI / 180;
 const RAD = 180 / Math.PI;
@@ -60,11 +58,6 @@ export interface SimulateCompassOptions {
   maxStepS?: number;
 }
 
-/** Wraps a radian difference to (−π, π]. */
-function wrapPi(x: number): number {
-  return x - 2 * Math.PI * Math.ceil((x - Math.PI) / (2 * Math.PI));
-}
-
 /**
  * Reading that satisfies reading + δ(reading) = card (compass + deviation = magnetic-equivalent card), by the
  * fixed-point iteration h ← card − δ(h) (PHYSICS §3, converges for legal cards). NaN if δ gives NaN.
@@ -80,6 +73,156 @@ function applyDeviationDeg(cardDeg: number, deviation: (compassDeg: number) => n
     if (d < 1e-10) break;
   }
   return h;
+}
+
+/** The trace's columns, all of length n (allocated once per run). */
+type TraceColumns = Required<Omit<CompassTrace, 'warnings'>>;
+
+// The passes below run over whole columns. The card helpers they call per sample are inlined by the JIT only while
+// a loop calls few of them, and a call that is not inlined boxes every number argument; so each loop calls one
+// or two helpers and keeps its per-sample values in typed arrays.
+
+/**
+ * Pass 1: per sample, validity, magnetic heading, body axes x_b and z_b, apparent gravity G for the full and the
+ * turn-only card (kinematic acceleration reduced to its lateral part a_lat = (a·p) p, p = (−sin ψ, cos ψ, 0) the
+ * horizontal right-hand normal of the true heading), |B|, zone flags, the unwrapped heading and the bowl rate.
+ * Invalid samples get NaN everywhere and COMPASS_FLAG_NO_INPUT. Returns the number of invalid samples.
+ */
+function inputsPass(state: FlightState, field: FieldAlongPath, inp: CardInputs, gTurn: Float64Array, tr: TraceColumns): number {
+  const { n, t, headingDegTrue, bankDeg, accN, accE, accD, turnRateDps, segment } = state;
+  // The lubber line's axes: cardPitchDeg where the state gives it (wind axes or logged attitude), else pitch.
+  const pitchDeg = state.cardPitchDeg ?? state.pitchDeg;
+  const { xNt, yNt, zNt, variationDeg, zone } = field;
+  const { valid, xb, zb, gapp, bNt, psiU, rate } = inp;
+  const { flags, headingMagDeg } = tr;
+  let missing = 0;
+  for (let i = 0; i < n; i++) {
+    const h = headingDegTrue[i], th = pitchDeg[i], ph = bankDeg[i];
+    const aN = accN[i], aE = accE[i], aD = accD[i];
+    const bx = xNt[i], by = yNt[i], bz = zNt[i];
+    const ok = Number.isFinite(h + th + ph + aN + aE + aD + bx + by + bz + variationDeg[i] + t[i]);
+    const z = zone[i];
+    const fl = z >= ZONE_BLACKOUT ? COMPASS_FLAG_BLACKOUT : z === ZONE_CAUTION ? COMPASS_FLAG_CAUTION : 0;
+    if (!ok) {
+      valid[i] = 0;
+      missing++;
+      tr.staticDeg[i] = tr.dynamicDeg[i] = tr.readingDeg[i] = tr.errorDeg[i] = NaN;
+      tr.errDipTurnDeg[i] = tr.errDipAccelDeg[i] = tr.errLagSwirlDeg[i] = tr.errDeviationDeg[i] = NaN;
+      tr.tiltDeg[i] = tr.directiveRatio[i] = headingMagDeg[i] = psiU[i] = rate[i] = NaN;
+      flags[i] = fl | COMPASS_FLAG_NO_INPUT;
+      tr.unreliable[i] = 1;
+      continue;
+    }
+    valid[i] = 1;
+    flags[i] = fl;
+    headingMagDeg[i] = wrap360(h - variationDeg[i]);
+    const ps = h * DEG, thr = th * DEG, phr = ph * DEG;
+    const cps = Math.cos(ps), sps = Math.sin(ps), cth = Math.cos(thr), sth = Math.sin(thr), cph = Math.cos(phr), sph = Math.sin(phr);
+    // Body axes in NED from (heading, pitch, bank), aerospace z-y-x Euler sequence (as in cardEquilibrium).
+    const i3 = 3 * i;
+    xb[i3] = cth * cps; xb[i3 + 1] = cth * sps; xb[i3 + 2] = -sth;
+    zb[i3] = cps * sth * cph + sps * sph; zb[i3 + 1] = sps * sth * cph - cps * sph; zb[i3 + 2] = cth * cph;
+    // G = g e_z − a; turn-only: a → a_lat.
+    gapp[i3] = -aN; gapp[i3 + 1] = -aE; gapp[i3 + 2] = G0_MS2 - aD;
+    const aLat = -aN * sps + aE * cps;
+    gTurn[i3] = aLat * sps; gTurn[i3 + 1] = -(aLat * cps); gTurn[i3 + 2] = G0_MS2;
+    bNt[i] = Math.sqrt(bx * bx + by * by + bz * bz);
+    // Unwrapped heading and bowl yaw rate.
+    const prevOk = i > 0 && valid[i - 1] === 1 && segment[i - 1] === segment[i];
+    psiU[i] = prevOk ? psiU[i - 1] + wrapPiRad(ps - headingDegTrue[i - 1] * DEG) : ps;
+    rate[i] = turnRateDps[i] * DEG;
+  }
+  // Bowl rate where the turn rate is missing: central difference of the unwrapped heading within the segment.
+  for (let i = 0; i < n; i++) {
+    if (valid[i] === 0 || Number.isFinite(rate[i])) continue;
+    const a = i > 0 && valid[i - 1] === 1 && segment[i - 1] === segment[i] ? i - 1 : i;
+    const b = i + 1 < n && valid[i + 1] === 1 && segment[i + 1] === segment[i] ? i + 1 : i;
+    rate[i] = b > a && t[b] > t[a] ? (psiU[b] - psiU[a]) / (t[b] - t[a]) : 0;
+  }
+  return missing;
+}
+
+/**
+ * Free card axis (freeCardAxis: finite pendulosity, no stop) at each valid sample for apparent gravity g (NED,
+ * interleaved by 3) and the sample's field; written to kOut (NaN where G is zero). kOut may be g itself.
+ */
+function freeAxesPass(inp: CardInputs, g: Float64Array, kOut: Float64Array): void {
+  const { n, valid, xNt, yNt, zNt, eps } = inp;
+  const eq = newCardEquilibrium();
+  for (let i = 0; i < n; i++) {
+    if (valid[i] === 0) continue;
+    const i3 = 3 * i;
+    freeCardAxis(g[i3], g[i3 + 1], g[i3 + 2], xNt[i], yNt[i], zNt[i], eps, eq);
+    kOut[i3] = eq.kN; kOut[i3 + 1] = eq.kE; kOut[i3 + 2] = eq.kD;
+  }
+}
+
+/**
+ * Static reading at each valid sample of the card whose free axis is k (NED, interleaved by 3): tilt stop, then
+ * reading (as cardEquilibrium; NaN where k is NaN), into readingDeg. With flags: COMPASS_FLAG_ON_STOP and
+ * COMPASS_FLAG_WEAK_DIRECTIVE (|B_p|/H below minDirective) are or-ed in.
+ */
+function stopAndReadPass(inp: CardInputs, k: Float64Array, readingDeg: Float64Array, flags: Uint8Array | null, minDirective: number): void {
+  const { n, valid, xb, zb, xNt, yNt, zNt, cosLim, sinLim } = inp;
+  const eq = newCardEquilibrium();
+  for (let i = 0; i < n; i++) {
+    if (valid[i] === 0) continue;
+    const i3 = 3 * i;
+    eq.kN = k[i3]; eq.kE = k[i3 + 1]; eq.kD = k[i3 + 2];
+    let r = NaN, onStop = false, directive = NaN;
+    if (!Number.isNaN(eq.kN)) { // a free axis exists (G not zero)
+      clampCardAxisToStop(zb[i3], zb[i3 + 1], zb[i3 + 2], cosLim, sinLim, eq, false);
+      readCardAxis(xb[i3], xb[i3 + 1], xb[i3 + 2], xNt[i], yNt[i], zNt[i], eq);
+      r = eq.readingDeg; onStop = eq.onStop; directive = eq.directiveRatio;
+    }
+    readingDeg[i] = r;
+    if (flags !== null) {
+      if (onStop) flags[i] |= COMPASS_FLAG_ON_STOP;
+      if (!(directive >= minDirective)) flags[i] |= COMPASS_FLAG_WEAK_DIRECTIVE;
+    }
+  }
+}
+
+/**
+ * Pass 3, per valid sample: the dynamic reading (gauge heading − χ), its flags (stop, weak directive force, swinging)
+ * and `unreliable`; the reading with deviation; the error and its split (static part from the turn-only reading
+ * sTurnDeg, see the file comment). Returns the number of samples where the deviation card gave no usable value.
+ */
+function errorSplitPass(
+  inp: CardInputs, chi: Float64Array, onStop: Uint8Array, sTurnDeg: Float64Array, profile: CompassProfile,
+  deviation: ((compassDeg: number) => number) | undefined, tr: TraceColumns,
+): number {
+  const { n, valid, psiU } = inp;
+  const { staticDeg, dynamicDeg, readingDeg, errorDeg, errDipTurnDeg, errDipAccelDeg, errLagSwirlDeg, errDeviationDeg } = tr;
+  const { directiveRatio, unreliable, headingMagDeg, flags } = tr;
+  const minDirective = profile.unreliableDirectiveRatio;
+  const unreliableMask = COMPASS_FLAG_WEAK_DIRECTIVE | COMPASS_FLAG_ON_STOP | COMPASS_FLAG_BLACKOUT | COMPASS_FLAG_NO_INPUT
+    | COMPASS_FLAG_SWINGING | (profile.cautionZoneUnreliable ? COMPASS_FLAG_CAUTION : 0);
+  let badDeviation = 0;
+  for (let i = 0; i < n; i++) {
+    if (valid[i] === 0) continue;
+    const hMag = headingMagDeg[i], sDeg = staticDeg[i], sTurn = sTurnDeg[i];
+    const dipTurn = wrap180(sTurn - hMag), dipAccel = wrap180(sDeg - sTurn);
+    errDipTurnDeg[i] = dipTurn;
+    errDipAccelDeg[i] = dipAccel;
+    const dyn = wrap360((psiU[i] - chi[i]) * RAD);
+    dynamicDeg[i] = dyn;
+    let fl = flags[i];
+    if (onStop[i] === 1) fl |= COMPASS_FLAG_ON_STOP;
+    if (!(directiveRatio[i] >= minDirective)) fl |= COMPASS_FLAG_WEAK_DIRECTIVE;
+    if (Math.abs(wrap180(dyn - sDeg)) > SWINGING_CARD_DEG) fl |= COMPASS_FLAG_SWINGING;
+    flags[i] = fl;
+    unreliable[i] = (fl & unreliableMask) !== 0 ? 1 : 0;
+    const rd = deviation ? applyDeviationDeg(dyn, deviation) : dyn;
+    if (deviation && !Number.isFinite(rd)) badDeviation++;
+    readingDeg[i] = rd;
+    const e = wrap180(rd - hMag);
+    const eDev = wrap180(rd - dyn);
+    errorDeg[i] = e;
+    errDeviationDeg[i] = eDev;
+    errLagSwirlDeg[i] = e - dipTurn - dipAccel - eDev;
+  }
+  return badDeviation;
 }
 
 /**
@@ -108,228 +251,38 @@ export function simulateCompass(
   const n = state.n;
   if (field.n !== n) throw new OptionError('field', `has ${field.n} samples, the flight state ${n}`);
 
-  const { t, headingDegTrue, bankDeg, accN, accE, accD, turnRateDps, segment } = state;
-  // The lubber line's axes: cardPitchDeg where the state gives it (wind axes or logged attitude), else pitch.
-  const pitchDeg = state.cardPitchDeg ?? state.pitchDeg;
-  const { xNt, yNt, zNt, variationDeg, zone } = field;
-
-  const eps = magnetPerPendulosityFromResidualDip(profile.residualDipDeg, profile.refHorizontalNt, profile.refVerticalNt);
-  const card: CardOptions = { tiltLimitDeg: profile.tiltLimitDeg, magnetPerPendulosityMs2PerNt: eps };
-  const cosLim = Math.cos(profile.tiltLimitDeg * DEG), sinLim = Math.sin(profile.tiltLimitDeg * DEG);
-  const w0 = (2 * Math.PI) / profile.periodS;
-  const w0sqPerNt = (w0 * w0) / profile.refHorizontalNt; // ω_n² = w0sqPerNt · |B_p|
-  const cDamp = 2 * profile.dampingRatio * w0;
-  const kappa = profile.swirlCoupling;
-  const tauS = profile.swirlTimeConstantS;
-  const tauTilt = profile.tiltLagS;
-
-  const staticDeg = new Float64Array(n);
-  const dynamicDeg = new Float64Array(n);
-  const readingDeg = new Float64Array(n);
-  const errorDeg = new Float64Array(n);
-  const errDipTurnDeg = new Float64Array(n);
-  const errDipAccelDeg = new Float64Array(n);
-  const errLagSwirlDeg = new Float64Array(n);
-  const errDeviationDeg = new Float64Array(n);
-  const tiltDeg = new Float64Array(n);
-  const directiveRatio = new Float64Array(n);
-  const unreliable = new Uint8Array(n);
-  const flags = new Uint8Array(n);
-  const headingMagDeg = new Float64Array(n);
-  // Per-sample inputs of the dynamic pass: body axes, apparent gravity, unwrapped heading [rad], bowl rate [rad/s].
-  const xb = new Float64Array(3 * n);
-  const zb = new Float64Array(3 * n);
-  const gapp = new Float64Array(3 * n);
-  const psiU = new Float64Array(n);
-  const rate = new Float64Array(n);
-  const valid = new Uint8Array(n);
-
-  const eq = newCardEquilibrium();
-  let missing = 0;
+  const tr: TraceColumns = {
+    n,
+    staticDeg: new Float64Array(n), dynamicDeg: new Float64Array(n), readingDeg: new Float64Array(n), errorDeg: new Float64Array(n),
+    errDipTurnDeg: new Float64Array(n), errDipAccelDeg: new Float64Array(n), errLagSwirlDeg: new Float64Array(n),
+    errDeviationDeg: new Float64Array(n), tiltDeg: new Float64Array(n), directiveRatio: new Float64Array(n),
+    unreliable: new Uint8Array(n), headingMagDeg: new Float64Array(n), flags: new Uint8Array(n),
+  };
+  const { staticDeg, tiltDeg, directiveRatio, flags } = tr;
+  const inp: CardInputs = {
+    n, t: state.t, segment: state.segment, valid: new Uint8Array(n),
+    xb: new Float64Array(3 * n), zb: new Float64Array(3 * n), gapp: new Float64Array(3 * n), kFree: new Float64Array(3 * n),
+    xNt: field.xNt, yNt: field.yNt, zNt: field.zNt, bNt: new Float64Array(n), psiU: new Float64Array(n), rate: new Float64Array(n),
+    eps: magnetPerPendulosityFromResidualDip(profile.residualDipDeg, profile.refHorizontalNt, profile.refVerticalNt),
+    cosLim: Math.cos(profile.tiltLimitDeg * DEG), sinLim: Math.sin(profile.tiltLimitDeg * DEG),
+  };
+  const minDirective = profile.unreliableDirectiveRatio;
+  const chi = new Float64Array(n), onStop = new Uint8Array(n); // outputs of the dynamic pass
 
   // ---- pass 1: inputs, static readings, turn-only readings ----
-  for (let i = 0; i < n; i++) {
-    const h = headingDegTrue[i], th = pitchDeg[i], ph = bankDeg[i];
-    const aN = accN[i], aE = accE[i], aD = accD[i];
-    const bx = xNt[i], by = yNt[i], bz = zNt[i];
-    const ok = Number.isFinite(h + th + ph + aN + aE + aD + bx + by + bz + variationDeg[i] + t[i]);
-    const z = zone[i];
-    let fl = z >= ZONE_BLACKOUT ? COMPASS_FLAG_BLACKOUT : z === ZONE_CAUTION ? COMPASS_FLAG_CAUTION : 0;
-    if (!ok) {
-      valid[i] = 0;
-      missing++;
-      staticDeg[i] = dynamicDeg[i] = readingDeg[i] = errorDeg[i] = NaN;
-      errDipTurnDeg[i] = errDipAccelDeg[i] = errLagSwirlDeg[i] = errDeviationDeg[i] = NaN;
-      tiltDeg[i] = directiveRatio[i] = headingMagDeg[i] = psiU[i] = rate[i] = NaN;
-      flags[i] = fl | COMPASS_FLAG_NO_INPUT;
-      unreliable[i] = 1;
-      continue;
-    }
-    valid[i] = 1;
-    headingMagDeg[i] = wrap360(h - variationDeg[i]);
-    const ps = h * DEG, tr = th * DEG, br = ph * DEG;
-    const cps = Math.cos(ps), sps = Math.sin(ps), cth = Math.cos(tr), sth = Math.sin(tr), cph = Math.cos(br), sph = Math.sin(br);
-    xb[3 * i] = cth * cps; xb[3 * i + 1] = cth * sps; xb[3 * i + 2] = -sth;
-    zb[3 * i] = cps * sth * cph + sps * sph; zb[3 * i + 1] = sps * sth * cph - cps * sph; zb[3 * i + 2] = cth * cph;
-    gapp[3 * i] = -aN; gapp[3 * i + 1] = -aE; gapp[3 * i + 2] = G0_MS2 - aD;
-    // Static card (instant tilt) for the sample's condition.
-    cardEquilibrium(h, th, ph, aN, aE, aD, bx, by, bz, eq, card);
-    staticDeg[i] = eq.readingDeg;
-    if (eq.onStop) fl |= COMPASS_FLAG_ON_STOP;
-    if (!(eq.directiveRatio >= profile.unreliableDirectiveRatio)) fl |= COMPASS_FLAG_WEAK_DIRECTIVE;
-    // Turn-only card: lateral part of the acceleration only.
-    const aLat = -aN * sps + aE * cps;
-    cardEquilibrium(h, th, ph, -aLat * sps, aLat * cps, 0, bx, by, bz, eq, card);
-    const sTurn = eq.readingDeg;
-    errDipTurnDeg[i] = wrap180(sTurn - headingMagDeg[i]);
-    errDipAccelDeg[i] = wrap180(staticDeg[i] - sTurn);
-    flags[i] = fl;
-    // Unwrapped heading and bowl yaw rate.
-    const prevOk = i > 0 && valid[i - 1] === 1 && segment[i - 1] === segment[i];
-    psiU[i] = prevOk ? psiU[i - 1] + wrapPi(ps - headingDegTrue[i - 1] * DEG) : ps;
-    rate[i] = turnRateDps[i] * DEG;
-  }
-  // Bowl rate where the turn rate is missing: central difference of the unwrapped heading within the segment.
-  for (let i = 0; i < n; i++) {
-    if (valid[i] === 0 || Number.isFinite(rate[i])) continue;
-    const a = i > 0 && valid[i - 1] === 1 && segment[i - 1] === segment[i] ? i - 1 : i;
-    const b = i + 1 < n && valid[i + 1] === 1 && segment[i + 1] === segment[i] ? i + 1 : i;
-    rate[i] = b > a && t[b] > t[a] ? (psiU[b] - psiU[a]) / (t[b] - t[a]) : 0;
-  }
+  const gTurn = new Float64Array(3 * n); // apparent gravity of the turn-only card, then its free axis, in place
+  const missing = inputsPass(state, field, inp, gTurn, tr);
+  freeAxesPass(inp, inp.gapp, inp.kFree);
+  stopAndReadPass(inp, inp.kFree, staticDeg, flags, minDirective);
+  freeAxesPass(inp, gTurn, gTurn);
+  const sTurnDeg = new Float64Array(n);
+  stopAndReadPass(inp, gTurn, sTurnDeg, null, minDirective);
 
   // ---- pass 2: card dynamics ----
-  // Card state: k (tilt, NED unit), chi, chiDot, omegaF. Node values: chiEq (unwrapped), wn2 (ω_n²), target fluid rate.
-  const kc = newCardEquilibrium();
-  const kFree = newCardEquilibrium(); // free (unlagged) card axis at the previous node
-  let lagH = NaN, lagE = 0, lagR = 0; // tilt-lag factors for the current sub-step length
-  let chi = 0, chiDot = 0, omF = 0;
-  let chiEqPrev = 0, wn2Prev = 0, tgtPrev = 0;
-  let nodeReading = NaN, nodeBp = 0, nodeOnStop = false, nodeTilt = NaN;
-  let nodePsi = 0;
+  integrateCardDynamics(inp, profile, maxStepS, { chi, tiltDeg, directiveRatio, onStop });
 
-  // Evaluates the card tilt and its equilibrium azimuth at an interpolated node (i, i+1, fraction f), advancing
-  // the lagged tilt by hNode seconds (hNode < 0: reset tilt to its target). Sets node* and returns chi_eq
-  // unwrapped against `chiRef` (or chiRef itself when the card has no directive force).
-  const evalNode = (i: number, j: number, f: number, hNode: number, chiRef: number): number => {
-    const g = 1 - f;
-    const i3 = 3 * i, j3 = 3 * j;
-    const bxn = g * xNt[i] + f * xNt[j], byn = g * yNt[i] + f * yNt[j], bzn = g * zNt[i] + f * zNt[j];
-    freeCardAxis(
-      g * gapp[i3] + f * gapp[j3], g * gapp[i3 + 1] + f * gapp[j3 + 1], g * gapp[i3 + 2] + f * gapp[j3 + 2],
-      bxn, byn, bzn, eps, eq,
-    );
-    if (hNode < 0 || tauTilt === 0) {
-      kc.kN = eq.kN; kc.kE = eq.kE; kc.kD = eq.kD;
-      kFree.kN = eq.kN; kFree.kE = eq.kE; kFree.kD = eq.kD;
-    } else if (hNode > 0) {
-      // Exact solution of k' = (u − k)/τ over the sub-step for u linear between the previous and this node's
-      // free axis (first-order-hold exponential integrator): k1 = u1 + e (k0 − u0) − (u1 − u0)(τ/h)(1 − e).
-      if (hNode !== lagH) { lagH = hNode; lagE = Math.exp(-hNode / tauTilt); lagR = (tauTilt / hNode) * (1 - lagE); }
-      const e = lagE, r = lagR;
-      let kN = eq.kN + e * (kc.kN - kFree.kN) - (eq.kN - kFree.kN) * r;
-      let kE = eq.kE + e * (kc.kE - kFree.kE) - (eq.kE - kFree.kE) * r;
-      let kD = eq.kD + e * (kc.kD - kFree.kD) - (eq.kD - kFree.kD) * r;
-      const l = Math.sqrt(kN * kN + kE * kE + kD * kD);
-      kN /= l; kE /= l; kD /= l;
-      kc.kN = kN; kc.kE = kE; kc.kD = kD;
-      kFree.kN = eq.kN; kFree.kE = eq.kE; kFree.kD = eq.kD;
-    }
-    let zN = g * zb[i3] + f * zb[j3], zE = g * zb[i3 + 1] + f * zb[j3 + 1], zD = g * zb[i3 + 2] + f * zb[j3 + 2];
-    const zl = Math.sqrt(zN * zN + zE * zE + zD * zD);
-    zN /= zl; zE /= zl; zD /= zl;
-    clampCardAxisToStop(zN, zE, zD, cosLim, sinLim, kc);
-    const xN = g * xb[i3] + f * xb[j3], xE = g * xb[i3 + 1] + f * xb[j3 + 1];
-    readCardAxis(xN, xE, g * xb[i3 + 2] + f * xb[j3 + 2], bxn, byn, bzn, kc);
-    nodeReading = kc.readingDeg;
-    nodeBp = kc.bpNt;
-    nodeOnStop = kc.onStop;
-    nodeTilt = kc.tiltDeg;
-    // Gauge heading: azimuth of the interpolated nose axis itself (not the interpolated angle, which differs from
-    // it by O(Δψ³) inside a sub-step and would shake χ_eq), continued from sample i.
-    const cr = xb[i3] * xE - xb[i3 + 1] * xN, dt = xb[i3] * xN + xb[i3 + 1] * xE;
-    nodePsi = f === 0 || !(cr * cr + dt * dt > 1e-20) ? g * psiU[i] + f * psiU[j] : psiU[i] + Math.atan2(cr, dt);
-    if (!Number.isFinite(nodeReading)) return chiRef;
-    const raw = nodePsi - nodeReading * DEG;
-    return chiRef + wrapPi(raw - chiRef);
-  };
-
-  const recordSample = (i: number) => {
-    const dyn = wrap360((nodePsi - chi) * RAD);
-    dynamicDeg[i] = dyn;
-    tiltDeg[i] = nodeTilt;
-    directiveRatio[i] = kc.directiveRatio;
-    let fl = flags[i];
-    if (nodeOnStop) fl |= COMPASS_FLAG_ON_STOP;
-    if (!(kc.directiveRatio >= profile.unreliableDirectiveRatio)) fl |= COMPASS_FLAG_WEAK_DIRECTIVE;
-    if (Math.abs(wrap180(dyn - staticDeg[i])) > SWINGING_CARD_DEG) fl |= COMPASS_FLAG_SWINGING;
-    flags[i] = fl;
-    unreliable[i] = (fl & (COMPASS_FLAG_WEAK_DIRECTIVE | COMPASS_FLAG_ON_STOP | COMPASS_FLAG_BLACKOUT | COMPASS_FLAG_NO_INPUT | COMPASS_FLAG_SWINGING)) !== 0
-      || (profile.cautionZoneUnreliable && (fl & COMPASS_FLAG_CAUTION) !== 0) ? 1 : 0;
-  };
-
-  for (let i = 0; i < n; i++) {
-    if (valid[i] === 0) continue;
-    const restart = i === 0 || valid[i - 1] === 0 || segment[i - 1] !== segment[i];
-    if (restart) {
-      const ce = evalNode(i, i, 0, -1, 0);
-      const wn2 = w0sqPerNt * nodeBp;
-      omF = kappa * rate[i];
-      const s = wn2 > 0 ? (cDamp * omF) / wn2 : 0;
-      chi = (Number.isFinite(nodeReading) ? ce : nodePsi) + Math.asin(Math.max(-1, Math.min(1, s)));
-      chiDot = 0;
-      chiEqPrev = Number.isFinite(nodeReading) ? ce : chi;
-      wn2Prev = wn2;
-      tgtPrev = kappa * rate[i];
-      recordSample(i);
-      continue;
-    }
-    // Integrate from sample i−1 to i.
-    const p = i - 1;
-    const dt = t[i] - t[p];
-    let hMax = maxStepS;
-    const wn2Est = w0sqPerNt * Math.max(Math.hypot(xNt[p], yNt[p], zNt[p]), Math.hypot(xNt[i], yNt[i], zNt[i]));
-    hMax = Math.min(hMax, 0.5 / Math.sqrt(wn2Est), 1 / cDamp, tauS / 4);
-    const nSub = dt > 0 ? Math.max(1, Math.ceil(dt / hMax - 1e-9)) : 0;
-    const h = nSub > 0 ? dt / nSub : 0;
-    for (let s = 1; s <= nSub; s++) {
-      const ceNew = evalNode(p, i, s / nSub, h, chiEqPrev);
-      const wn2New = w0sqPerNt * nodeBp;
-      const tgtNew = kappa * (((nSub - s) * rate[p] + s * rate[i]) / nSub);
-      // RK4 on (chi, chiDot, omF) with chi_eq, ω_n², fluid target linear over the sub-step.
-      const ceMid = 0.5 * (chiEqPrev + ceNew), wMid = 0.5 * (wn2Prev + wn2New), tMid = 0.5 * (tgtPrev + tgtNew);
-      const a1 = -wn2Prev * Math.sin(chi - chiEqPrev) - cDamp * (chiDot - omF);
-      const f1 = (tgtPrev - omF) / tauS;
-      const x2 = chi + 0.5 * h * chiDot, v2 = chiDot + 0.5 * h * a1, o2 = omF + 0.5 * h * f1;
-      const a2 = -wMid * Math.sin(x2 - ceMid) - cDamp * (v2 - o2);
-      const f2 = (tMid - o2) / tauS;
-      const x3 = chi + 0.5 * h * v2, v3 = chiDot + 0.5 * h * a2, o3 = omF + 0.5 * h * f2;
-      const a3 = -wMid * Math.sin(x3 - ceMid) - cDamp * (v3 - o3);
-      const f3 = (tMid - o3) / tauS;
-      const x4 = chi + h * v3, v4 = chiDot + h * a3, o4 = omF + h * f3;
-      const a4 = -wn2New * Math.sin(x4 - ceNew) - cDamp * (v4 - o4);
-      const f4 = (tgtNew - o4) / tauS;
-      chi += (h / 6) * (chiDot + 2 * v2 + 2 * v3 + v4);
-      chiDot += (h / 6) * (a1 + 2 * a2 + 2 * a3 + a4);
-      omF += (h / 6) * (f1 + 2 * f2 + 2 * f3 + f4);
-      chiEqPrev = ceNew; wn2Prev = wn2New; tgtPrev = tgtNew;
-    }
-    if (nSub === 0) evalNode(i, i, 0, 0, chiEqPrev);
-    recordSample(i);
-  }
-
-  // ---- pass 3: deviation and the error split ----
-  let badDeviation = 0;
-  for (let i = 0; i < n; i++) {
-    if (valid[i] === 0) continue;
-    const dyn = dynamicDeg[i];
-    const rd = deviation ? applyDeviationDeg(dyn, deviation) : dyn;
-    if (deviation && !Number.isFinite(rd)) badDeviation++;
-    readingDeg[i] = rd;
-    const e = wrap180(rd - headingMagDeg[i]);
-    errorDeg[i] = e;
-    errDeviationDeg[i] = wrap180(rd - dyn);
-    errLagSwirlDeg[i] = e - errDipTurnDeg[i] - errDipAccelDeg[i] - errDeviationDeg[i];
-  }
+  // ---- pass 3: dynamic reading, its flags, deviation and the error split ----
+  const badDeviation = errorSplitPass(inp, chi, onStop, sTurnDeg, profile, deviation, tr);
 
   const warnings: LogWarning[] = [];
   if (missing > 0) {
@@ -346,6 +299,7 @@ export function simulateCompass(
       count: badDeviation,
     });
   }
+  const { dynamicDeg, readingDeg, errorDeg, errDipTurnDeg, errDipAccelDeg, errLagSwirlDeg, errDeviationDeg, unreliable, headingMagDeg } = tr;
   return {
     n, staticDeg, dynamicDeg, readingDeg, errorDeg, errDipTurnDeg, errDipAccelDeg, errLagSwirlDeg, errDeviationDeg,
     tiltDeg, directiveRatio, unreliable, headingMagDeg, flags, warnings,
