@@ -10,18 +10,16 @@ export function escapeHtml(text: string): string {
   return text.replace(/[&<>"']/g, (ch) => HTML_ESCAPES[ch]);
 }
 
+/** The characters jsonForScriptBlock escapes, one pass over the JSON text for all of them. */
+const SCRIPT_BLOCK_ESCAPES: Record<string, string> = { '<': '\\u003c', '>': '\\u003e', '&': '\\u0026', '\u2028': '\\u2028', '\u2029': '\\u2029' };
+
 /**
  * JSON for a `<script type="application/json">` block: `<`, `>` and `&` written as \u003c, \u003e,
  * \u0026 so no `</script>` or `<!--` can appear (HTML Living Standard §4.12.1.3, restrictions for
  * contents of script elements); U+2028/U+2029 escaped too. JSON.parse of the block gives the value back.
  */
 export function jsonForScriptBlock(value: unknown): string {
-  return JSON.stringify(value)
-    .replace(/</g, '\\u003c')
-    .replace(/>/g, '\\u003e')
-    .replace(/&/g, '\\u0026')
-    .replace(/\u2028/g, '\\u2028')
-    .replace(/\u2029/g, '\\u2029');
+  return JSON.stringify(value).replace(/[<>&\u2028\u2029]/g, (ch) => SCRIPT_BLOCK_ESCAPES[ch]);
 }
 
 /**

@@ -42,17 +42,43 @@ export interface ReportPageData {
   unreliableSpans: ReportModel['unreliableSpans'];
 }
 
+/** CSP hash source of an inline script, with the assets' own SHA-256 where they carry one. */
+function scriptHash(text: string, assets: ReportAssets): string {
+  return assets.sha256Base64 ? `'sha256-${assets.sha256Base64(text)}'` : cspScriptHash(text);
+}
+
+/** The chart library as inlined (compile hint + inlineScriptSource) and its CSP hash, for one source text and hash function. */
+interface InlinedPlotly {
+  source: string;
+  sha256Base64: ReportAssets['sha256Base64'];
+  text: string;
+  hash: string;
+}
+
+/** The last chart library inlined: the same 4.6 MB text comes with every flight of a process. */
+let lastPlotly: InlinedPlotly | undefined;
+
+/**
+ * The chart library's inline script text and CSP hash; made again only when the library's text or the
+ * hash function differs from the last call's (a cache of one entry, so the result is as without it).
+ */
+function inlinedPlotly(assets: ReportAssets): InlinedPlotly {
+  const last = lastPlotly;
+  if (last !== undefined && last.sha256Base64 === assets.sha256Base64 && last.source === assets.plotlyJs) return last;
+  // V8's explicit compile hint (a magic comment, ignored elsewhere): the chart library runs most of its
+  // functions while it loads, so compiling them eagerly saves a lazy pre-parse (about 0.15–0.2 s in
+  // chromium on the 3-hour flight's page).
+  const text = '//# allFunctionsCalledOnLoad\n' + inlineScriptSource(assets.plotlyJs);
+  lastPlotly = { source: assets.plotlyJs, sha256Base64: assets.sha256Base64, text, hash: scriptHash(text, assets) };
+  return lastPlotly;
+}
+
 /**
  * Content-Security-Policy of the page: nothing may be fetched or sent (default-src 'none',
  * connect-src 'none'), scripts run only when their text hashes to one of `scriptHashes` (CSP Level 3
  * hash sources), styles inline, images only from data: and blob: URLs (in-page memory, used by
  * Plotly's "download plot as PNG", never the network).
  */
-/** CSP hash source of an inline script, with the assets' own SHA-256 where they carry one. */
-function scriptHash(text: string, assets: ReportAssets): string {
-  return assets.sha256Base64 ? `'sha256-${assets.sha256Base64(text)}'` : cspScriptHash(text);
-}
-
 export function reportCsp(scriptHashes: string[]): string {
   return [
     "default-src 'none'",
@@ -77,12 +103,20 @@ export function reportCsp(scriptHashes: string[]): string {
  */
 export function fillTemplate(template: string, values: Record<string, string>): string {
   const used = new Set<string>();
-  const out = template.replace(/\{\{([A-Z_]+)\}\}/g, (_whole, name: string) => {
+  // Pieces joined by +, not String.prototype.replace: the engine links the megabyte-long values instead of
+  // copying them into a new string here (the copy happens once, when the page is written out).
+  const placeholder = /\{\{([A-Z_]+)\}\}/g;
+  let out = '';
+  let from = 0;
+  for (let m = placeholder.exec(template); m !== null; m = placeholder.exec(template)) {
+    const name = m[1];
     const v = values[name];
     if (v === undefined) throw new InputError('report-template/report.html', `placeholder {{${name}}} has no value`);
     used.add(name);
-    return v;
-  });
+    out += template.slice(from, m.index) + v;
+    from = m.index + m[0].length;
+  }
+  out += template.slice(from);
   for (const name of Object.keys(values)) {
     if (!used.has(name)) throw new InputError('report-template/report.html', `placeholder {{${name}}} is missing from the template`);
   }
@@ -103,10 +137,8 @@ export function fillTemplate(template: string, values: Record<string, string>): 
  * @throws InputError when the template and the renderer disagree on placeholders
  */
 export function renderReport(model: ReportModel, assets: ReportAssets): string {
-  // V8's explicit compile hint (a magic comment, ignored elsewhere): the chart library runs most of its
-  // functions while it loads, so compiling them eagerly saves a lazy pre-parse (about 0.15–0.2 s in
-  // chromium on the 3-hour flight's page).
-  const plotlyJs = '//# allFunctionsCalledOnLoad\n' + inlineScriptSource(assets.plotlyJs);
+  const plotly = inlinedPlotly(assets);
+  const plotlyJs = plotly.text;
   const pageJs = inlineScriptSource(assets.js);
   const labelled = new Set([...model.divergences].sort((a, b) => Math.abs(b.peakErrorDeg) - Math.abs(a.peakErrorDeg)).slice(0, 12));
   const { row: _rows, ...drawnSeries } = model.series;
@@ -142,7 +174,7 @@ export function renderReport(model: ReportModel, assets: ReportAssets): string {
       ? `Every sample is drawn (${fmtCount(d.samples)}).`
       : `Drawn: ${fmtCount(d.drawn)} of ${fmtCount(d.samples)} samples (${d.method}). The samples CSV holds every sample.`;
   return fillTemplate(assets.html, {
-    CSP: escapeHtml(reportCsp([scriptHash(plotlyJs, assets), scriptHash(pageJs, assets)])),
+    CSP: escapeHtml(reportCsp([plotly.hash, scriptHash(pageJs, assets)])),
     TITLE: escapeHtml(model.title),
     CSS: assets.css.replace(/<\/style/gi, '<\\/style'),
     SUBTITLE: escapeHtml(subtitle),

@@ -2,7 +2,6 @@
 import { finiteRange } from '../util/finiteRange.js';
 import { FT_M, KT_MS, NM_M } from '../constants.js';
 import { OptionError } from '../errors.js';
-import { wrap360 } from '../geo/angles.js';
 import type { FlightAnalysis } from '../flightAnalysis.js';
 import { ZONE_BLACKOUT, ZONE_CAUTION } from '../magnetic/fieldAlongPath.js';
 import type { WindSource } from '../state/flightState.js';
@@ -11,7 +10,10 @@ import { downsampleForDrawing } from './downsampleForDrawing.js';
 import { flagSpans, mergeCloseSpans, segmentGaps } from './flagSpans.js';
 import { largestErrorPeaks } from './largestErrorPeaks.js';
 import { localPlanNm } from './localPlanNm.js';
+import { maxRangeNm } from './maxRangeNm.js';
 import { fmtCount } from './pilotFormat.js';
+import { kthSmallestInPlace } from './kthSmallestInPlace.js';
+import { wrap360Fast } from './wrapAngleFast.js';
 import type {
   ReportDivergenceRow,
   ReportErrorPeak,
@@ -63,13 +65,14 @@ export function buildReportModel(a: FlightAnalysis, opts: ReportModelOptions = {
   const n = s.n;
 
   const headingMagDeg = new Float64Array(n);
-  for (let i = 0; i < n; i++) headingMagDeg[i] = wrap360(s.headingDegTrue[i] - f.variationDeg[i]);
+  for (let i = 0; i < n; i++) headingMagDeg[i] = wrap360Fast(s.headingDegTrue[i] - f.variationDeg[i]);
   const first = firstFiniteFix(s.lat, s.lon);
   const plan = localPlanNm(s.lat, s.lon, s.lat[first] ?? 0, s.lon[first] ?? 0);
 
   // The headline errors are those of a card that still reads: samples flagged unreliable (card swinging,
   // on its stop, without directive force, weak-field zone) are left out of them and counted separately.
-  const reliableErrorDeg = c.errorDeg.map((e, i) => (c.unreliable[i] !== 0 ? NaN : e));
+  const reliableErrorDeg = new Float64Array(n);
+  for (let i = 0; i < n; i++) reliableErrorDeg[i] = c.unreliable[i] !== 0 ? NaN : c.errorDeg[i];
   const peakRows = largestErrorPeaks(s.t, reliableErrorDeg, 5, 60);
   const forced: number[] = [...peakRows];
   for (let i = 0; i < n; i++) if (i === 0 || i === n - 1 || s.segment[i] !== s.segment[i - 1] || s.segment[i] !== s.segment[i + 1]) forced.push(i);
@@ -215,21 +218,19 @@ function buildGlance(
   const n = s.n;
   let last = n - 1;
   while (last > 0 && !(Number.isFinite(s.lat[last]) && Number.isFinite(s.lon[last]))) last--;
-  let maxRangeNm = 0;
   let sumSq = 0;
   let nErr = 0;
   let maxAbsErrorDeg = 0;
   let unreliable = 0;
   let caution = 0;
   let blackout = 0;
+  const maxRange = maxRangeNm(plan.eastNm, plan.northNm);
   for (let i = 0; i < n; i++) {
-    const r = Math.hypot(plan.eastNm[i], plan.northNm[i]);
-    if (Number.isFinite(r) && r > maxRangeNm) maxRangeNm = r;
-    const e = c.errorDeg[i];
-    if (Number.isFinite(e)) {
-      sumSq += e * e;
+    const err = c.errorDeg[i];
+    if (Number.isFinite(err)) {
+      sumSq += err * err;
       nErr++;
-      if (c.unreliable[i] === 0 && Math.abs(e) > maxAbsErrorDeg) maxAbsErrorDeg = Math.abs(e);
+      if (c.unreliable[i] === 0 && Math.abs(err) > maxAbsErrorDeg) maxAbsErrorDeg = Math.abs(err);
     }
     if (c.unreliable[i] !== 0) unreliable++;
     if (f.zone[i] === ZONE_CAUTION) caution++;
@@ -263,7 +264,7 @@ function buildGlance(
     startLonDeg: s.lon[first],
     endLatDeg: s.lat[last],
     endLonDeg: s.lon[last],
-    maxRangeNm,
+    maxRangeNm: maxRange,
     altMinFt: alt.min / FT_M,
     altMaxFt: alt.max / FT_M,
     altDatum: a.log.source.altDatum,
@@ -340,8 +341,7 @@ function medianStepS(t: Float64Array, segment: Int32Array): number {
   let k = 0;
   for (let i = 1; i < t.length; i++) if (segment[i] === segment[i - 1] && Number.isFinite(t[i] - t[i - 1])) steps[k++] = t[i] - t[i - 1];
   if (k === 0) return NaN;
-  const used = steps.subarray(0, k).sort();
-  return used[Math.floor(k / 2)];
+  return kthSmallestInPlace(steps.subarray(0, k), Math.floor(k / 2));
 }
 
 /**
@@ -353,8 +353,7 @@ function errorColourScaleDeg(errorDeg: Float64Array): number {
   const abs = new Float64Array(errorDeg.length);
   for (let i = 0; i < errorDeg.length; i++) if (Number.isFinite(errorDeg[i])) abs[k++] = Math.abs(errorDeg[i]);
   if (k === 0) return 5;
-  abs.subarray(0, k).sort(); // typed-array sort: numeric, no comparator call per pair
-  const p99 = abs[Math.min(k - 1, Math.floor(0.99 * k))];
+  const p99 = kthSmallestInPlace(abs.subarray(0, k), Math.min(k - 1, Math.floor(0.99 * k)));
   return Math.max(5, Math.ceil(p99 / 5) * 5);
 }
 

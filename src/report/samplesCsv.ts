@@ -1,8 +1,16 @@
 // The samples CSV: one row per sample, the contract columns of DESIGN.md first, the error split after them.
 import { KT_MS } from '../constants.js';
-import { wrap360, wrap180 } from '../geo/angles.js';
 import type { FlightAnalysis } from '../flightAnalysis.js';
-import { AsciiRowWriter } from './asciiRowWriter.js';
+import { wrap180Fast, wrap360Fast } from './wrapAngleFast.js';
+import { AsciiRowWriter, roundNonNegative31, writeFixed, writeScaled31, writeTwoDigits, writeUint } from './asciiRowWriter.js';
+
+const POW10 = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9];
+const CH_COMMA = 44;
+const CH_NL = 10;
+const CH_DOT = 46;
+const CH_COLON = 58;
+const CH_Z = 90;
+const CH_0 = 48;
 
 /** Contract columns, exactly these names in this order (DESIGN.md "Samples CSV"). */
 export const SAMPLES_CONTRACT_COLUMNS = [
@@ -40,50 +48,71 @@ export const SAMPLES_EXTRA_COLUMNS = [
 ] as const;
 
 /** An angle wrapped to [0, 360) with `digits` decimals; a value that would round to 360 is written as 0. */
-function angle360(w: AsciiRowWriter, x: number, digits: number): void {
-  if (!Number.isFinite(x)) return;
-  const v = wrap360(x);
-  w.fixed(Math.round(v * 10 ** digits) >= 360 * 10 ** digits ? 0 : v, digits);
+function writeAngle360(buf: Uint8Array, pos: number, x: number, digits: number): number {
+  if (!Number.isFinite(x)) return pos;
+  const v = wrap360Fast(x); // 0 ≤ v < 360, so |v|·10^digits is far below 2^31
+  const scale = POW10[digits];
+  const r = roundNonNegative31(v * scale);
+  return writeScaled31(buf, pos, false, r >= 360 * scale ? 0 : r, digits);
 }
 
 /** A signed angle wrapped to (−180, 180] with `digits` decimals. */
-function angle180(w: AsciiRowWriter, x: number, digits: number): void {
-  if (Number.isFinite(x)) w.fixed(wrap180(x), digits);
+function writeAngle180(buf: Uint8Array, pos: number, x: number, digits: number): number {
+  return Number.isFinite(x) ? writeFixed(buf, pos, wrap180Fast(x), digits) : pos;
 }
 
-/** ISO 8601 UTC with milliseconds, e.g. 2026-05-04T10:11:12.500Z; the date part is made once per UTC day. */
-function isoTimeWriter(): (w: AsciiRowWriter, tS: number) => void {
-  let day = NaN;
-  let prefix = '';
-  return (w: AsciiRowWriter, tS: number) => {
-    if (!Number.isFinite(tS)) return;
-    const ms = Math.round(tS * 1000);
-    const d = Math.floor(ms / 86_400_000);
-    if (d !== day) {
-      day = d;
-      prefix = new Date(d * 86_400_000).toISOString().slice(0, 11);
-    }
-    let rem = ms - d * 86_400_000;
-    const h = Math.floor(rem / 3_600_000);
-    rem -= h * 3_600_000;
-    const m = Math.floor(rem / 60_000);
-    rem -= m * 60_000;
-    const sec = Math.floor(rem / 1000);
-    w.ascii(prefix);
-    w.uint(h, 2);
-    w.ascii(':');
-    w.uint(m, 2);
-    w.ascii(':');
-    w.uint(sec, 2);
-    w.ascii('.');
-    w.uint(rem - sec * 1000, 3);
-    w.ascii('Z');
-  };
+/** ASCII bytes of "YYYY-MM-DDT" for UTC day number d (days since 1970-01-01). */
+function dayPrefixBytes(d: number): Uint8Array {
+  const text = new Date(d * 86_400_000).toISOString().slice(0, 11);
+  const out = new Uint8Array(text.length);
+  for (let k = 0; k < text.length; k++) out[k] = text.charCodeAt(k);
+  return out;
 }
 
-/** Direction the wind blows from [deg true] for an air-mass velocity (windN, windE: where it blows to). */
-function windFromDeg(windN: number, windE: number): number {
-  return Math.hypot(windN, windE) > 0 ? (Math.atan2(-windE, -windN) * 180) / Math.PI : 0;
+/**
+ * ISO 8601 UTC with milliseconds, e.g. 2026-05-04T10:11:12.500Z, at buf[pos] (nothing when tS is not
+ * finite); returns the new position. `day` holds the last day number and its "YYYY-MM-DDT" bytes, so the
+ * date part is made once per UTC day.
+ */
+function writeIsoTime(buf: Uint8Array, pos: number, tS: number, day: { d: number; prefix: Uint8Array }): number {
+  if (!Number.isFinite(tS)) return pos;
+  const ms = roundMs(tS * 1000);
+  const d = Math.floor(ms / 86_400_000);
+  if (d !== day.d) {
+    day.d = d;
+    day.prefix = dayPrefixBytes(d);
+  }
+  // 0 ≤ ms of the day < 86,400,000: int32 arithmetic from here on.
+  let rem = (ms - d * 86_400_000) | 0;
+  const h = (rem / 3_600_000) | 0;
+  rem -= h * 3_600_000;
+  const m = (rem / 60_000) | 0;
+  rem -= m * 60_000;
+  const sec = (rem / 1000) | 0;
+  rem -= sec * 1000;
+  let p = pos;
+  const prefix = day.prefix;
+  for (let k = 0; k < prefix.length; k++) buf[p++] = prefix[k];
+  p = writeTwoDigits(buf, p, h);
+  buf[p++] = CH_COLON;
+  p = writeTwoDigits(buf, p, m);
+  buf[p++] = CH_COLON;
+  p = writeTwoDigits(buf, p, sec);
+  buf[p++] = CH_DOT;
+  buf[p++] = CH_0 + ((rem / 100) | 0);
+  p = writeTwoDigits(buf, p, rem % 100);
+  buf[p++] = CH_Z;
+  return p;
+}
+
+/**
+ * Math.round(v), the same value, for the millisecond count of a time: floor(v + 0.5), less one where the
+ * addition rounded up across an integer (both steps exact below 2^51); Math.round itself beyond that.
+ */
+function roundMs(v: number): number {
+  if (!(Math.abs(v) < 2 ** 51)) return Math.round(v);
+  const r = Math.floor(v + 0.5);
+  return r - 0.5 > v ? r - 1 : r;
 }
 
 /**
@@ -92,51 +121,65 @@ function windFromDeg(windN: number, windE: number): number {
  */
 export function samplesCsv(a: FlightAnalysis): string {
   const decoder = new TextDecoder();
-  return Array.from(samplesCsvChunks(a), (c) => decoder.decode(c)).join('');
+  let text = '';
+  for (const c of samplesCsvChunks(a)) text += decoder.decode(c);
+  return text;
 }
 
-/**
- * The samples CSV as byte chunks of about `chunkBytes` (ASCII, the header first), for writing long flights
- * without holding the file as one string or making a string per value. Joined, the chunks are samplesCsv(a).
- */
 export function* samplesCsvChunks(a: FlightAnalysis, chunkBytes = 1 << 20): Generator<Uint8Array> {
-  const { state: s, field: f, compass: c } = a;
   const w = new AsciiRowWriter(Math.max(chunkBytes, 2048));
   w.ascii([...SAMPLES_CONTRACT_COLUMNS, ...SAMPLES_EXTRA_COLUMNS].join(','));
   w.newline();
-  const iso = isoTimeWriter();
-  const sigma = s.headingSigmaDeg;
-  for (let i = 0; i < s.n; i++) {
-    const headingMag = s.headingDegTrue[i] - f.variationDeg[i];
-    iso(w, s.t[i]); w.comma();
-    w.fixed(s.lat[i], 7); w.comma();
-    w.fixed(s.lon[i], 7); w.comma();
-    w.fixed(s.altM[i], 1); w.comma();
-    w.fixed(s.gsMs[i] / KT_MS, 2); w.comma();
-    angle360(w, s.trackDegTrue[i], 2); w.comma();
-    angle360(w, s.headingDegTrue[i], 2); w.comma();
-    angle360(w, headingMag, 2); w.comma();
-    angle180(w, f.variationDeg[i], 3); w.comma();
-    w.fixed(f.dipDeg[i], 3); w.comma();
-    w.fixed(s.bankDeg[i], 2); w.comma();
-    w.fixed(s.turnRateDps[i], 3); w.comma();
-    w.fixed(s.accelLongMs2[i], 3); w.comma();
-    angle360(w, c.staticDeg[i], 2); w.comma();
-    angle360(w, c.readingDeg[i], 2); w.comma();
-    angle180(w, c.errorDeg[i], 2); w.comma();
-    w.fixed(c.errDipTurnDeg[i], 2); w.comma();
-    w.fixed(c.errDipAccelDeg[i], 2); w.comma();
-    w.fixed(c.errLagSwirlDeg[i], 2); w.comma();
-    w.fixed(c.errDeviationDeg[i], 2); w.comma();
-    w.fixed(c.tiltDeg[i], 2); w.comma();
-    w.uint(c.unreliable[i]); w.comma();
-    w.uint(s.segment[i]); w.comma();
-    angle180(w, s.trackDegTrue[i] - s.headingDegTrue[i], 2); w.comma();
-    w.fixed(sigma ? sigma[i] : NaN, 2); w.comma();
-    angle360(w, windFromDeg(s.windN[i], s.windE[i]), 1); w.comma();
-    w.fixed(Math.hypot(s.windN[i], s.windE[i]) / KT_MS, 1);
-    w.newline();
+  const day = { d: NaN, prefix: new Uint8Array(0) };
+  for (let i = 0; i < a.state.n; ) {
+    i = writeSampleRows(a, i, w, day);
     if (w.nearlyFull()) yield w.take();
   }
   yield w.take();
+}
+
+function writeSampleRows(a: FlightAnalysis, i0: number, w: AsciiRowWriter, day: { d: number; prefix: Uint8Array }): number {
+  const { state: s, field: f, compass: c } = a;
+  const { t, lat, lon, altM, gsMs, trackDegTrue, headingDegTrue, bankDeg, turnRateDps, accelLongMs2, segment, windN, windE } = s;
+  const { variationDeg, dipDeg } = f;
+  const { staticDeg, readingDeg, errorDeg, errDipTurnDeg, errDipAccelDeg, errLagSwirlDeg, errDeviationDeg, tiltDeg, unreliable } = c;
+  const sigma = s.headingSigmaDeg;
+  const buf = w.buf;
+  const limit = buf.length - 1024;
+  let p = w.pos;
+  let i = i0;
+  for (; i < s.n && p <= limit; i++) {
+    const headingMag = headingDegTrue[i] - variationDeg[i];
+    const windMs = Math.hypot(windN[i], windE[i]);
+    p = writeIsoTime(buf, p, t[i], day); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, lat[i], 7); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, lon[i], 7); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, altM[i], 1); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, gsMs[i] / KT_MS, 2); buf[p++] = CH_COMMA;
+    p = writeAngle360(buf, p, trackDegTrue[i], 2); buf[p++] = CH_COMMA;
+    p = writeAngle360(buf, p, headingDegTrue[i], 2); buf[p++] = CH_COMMA;
+    p = writeAngle360(buf, p, headingMag, 2); buf[p++] = CH_COMMA;
+    p = writeAngle180(buf, p, variationDeg[i], 3); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, dipDeg[i], 3); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, bankDeg[i], 2); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, turnRateDps[i], 3); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, accelLongMs2[i], 3); buf[p++] = CH_COMMA;
+    p = writeAngle360(buf, p, staticDeg[i], 2); buf[p++] = CH_COMMA;
+    p = writeAngle360(buf, p, readingDeg[i], 2); buf[p++] = CH_COMMA;
+    p = writeAngle180(buf, p, errorDeg[i], 2); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, errDipTurnDeg[i], 2); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, errDipAccelDeg[i], 2); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, errLagSwirlDeg[i], 2); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, errDeviationDeg[i], 2); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, tiltDeg[i], 2); buf[p++] = CH_COMMA;
+    p = writeUint(buf, p, unreliable[i]); buf[p++] = CH_COMMA;
+    p = writeUint(buf, p, segment[i]); buf[p++] = CH_COMMA;
+    p = writeAngle180(buf, p, trackDegTrue[i] - headingDegTrue[i], 2); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, sigma ? sigma[i] : NaN, 2); buf[p++] = CH_COMMA;
+    p = writeAngle360(buf, p, windMs > 0 ? (Math.atan2(-windE[i], -windN[i]) * 180) / Math.PI : 0, 1); buf[p++] = CH_COMMA;
+    p = writeFixed(buf, p, windMs / KT_MS, 1);
+    buf[p++] = CH_NL;
+  }
+  w.pos = p;
+  return i;
 }

@@ -4,6 +4,8 @@ import { KT_MS } from '../constants.js';
 import { circularMeanDeg, wrap180, wrap360 } from '../geo/angles.js';
 import type { FlightAnalysis } from '../flightAnalysis.js';
 import { ZONE_BLACKOUT, ZONE_CAUTION } from '../magnetic/fieldAlongPath.js';
+import { kthSmallestInPlace } from './kthSmallestInPlace.js';
+import { wrap180Fast } from './wrapAngleFast.js';
 
 /** Version of the summary layout; bump when a field changes meaning. The JSON Schema is summary.schema.json. */
 export const SUMMARY_SCHEMA_VERSION = '1';
@@ -76,14 +78,20 @@ function splitStats(col: Float64Array): { rms_deg: number | null; max_abs_deg: n
 
 /** Drift angle (track − heading, right +) along the flight: median, largest each way. */
 function driftSummary(s: FlightAnalysis['state']): { median_deg: number | null; min_deg: number | null; max_deg: number | null } {
-  const d: number[] = [];
+  // The sorted list's middle, first and last entries, by one selection and one scan instead of a sort.
+  const d = new Float64Array(s.n);
+  let k = 0;
+  let min = Infinity;
+  let max = -Infinity;
   for (let i = 0; i < s.n; i++) {
-    const v = wrap180(s.trackDegTrue[i] - s.headingDegTrue[i]);
-    if (Number.isFinite(v)) d.push(v);
+    const v = wrap180Fast(s.trackDegTrue[i] - s.headingDegTrue[i]);
+    if (!Number.isFinite(v)) continue;
+    d[k++] = v;
+    if (v < min) min = v;
+    if (v > max) max = v;
   }
-  if (d.length === 0) return { median_deg: null, min_deg: null, max_deg: null };
-  d.sort((a, b) => a - b);
-  return { median_deg: round(d[d.length >> 1], 1), min_deg: round(d[0], 1), max_deg: round(d[d.length - 1], 1) };
+  if (k === 0) return { median_deg: null, min_deg: null, max_deg: null };
+  return { median_deg: round(kthSmallestInPlace(d.subarray(0, k), k >> 1), 1), min_deg: round(min, 1), max_deg: round(max, 1) };
 }
 
 /** Builds the summary object (plain JSON data) of one analysed flight. */
@@ -97,8 +105,11 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
   let worstZone = 0;
   for (let i = 0; i < f.n; i++) if (f.zone[i] > worstZone) worstZone = f.zone[i];
   const iMax = argMaxAbs(c.errorDeg);
-  const reliableError = c.errorDeg.map((e, i) => (c.unreliable[i] ? NaN : e));
+  const reliableError = new Float64Array(c.errorDeg.length);
+  for (let i = 0; i < reliableError.length; i++) reliableError[i] = c.unreliable[i] ? NaN : c.errorDeg[i];
   const iRel = argMaxAbs(reliableError);
+  let unreliableSamples = 0;
+  for (let i = 0; i < c.unreliable.length; i++) if (c.unreliable[i]) unreliableSamples++;
   return {
     schema_version: SUMMARY_SCHEMA_VERSION,
     source: { file: a.log.source.file, format: a.log.source.format, meta: { ...a.log.source.meta } },
@@ -141,7 +152,7 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
       max_error_utc: iMax >= 0 ? utc(s.t[iMax]) : null,
       max_abs_error_reliable_deg: iRel >= 0 ? round(Math.abs(c.errorDeg[iRel]), 1) : null,
       max_reliable_error_utc: iRel >= 0 ? utc(s.t[iRel]) : null,
-      unreliable_samples: c.unreliable.reduce((k, v) => k + (v ? 1 : 0), 0),
+      unreliable_samples: unreliableSamples,
       deviation_sign_convention: 'deviation = magnetic − compass, easterly +; compass + deviation = magnetic',
       // The error split over the flight (samples CSV err_* columns): RMS and largest |value| of each part.
       split: {
