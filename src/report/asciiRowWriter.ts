@@ -141,11 +141,16 @@ export function uintReference(buf: Uint8Array, pos: number, v: number, width = 1
   return p;
 }
 
-/** The plain fixed-decimals writer the fast one must match (see writeFixed); |x|·10^decimals below 2^53. */
+/**
+ * The plain fixed-decimals writer the fast one must match (see writeFixed). Where |x|·10^decimals is 2^53
+ * or more (no value of a flight comes near: beyond it the digits would not be exact, and at overflow to
+ * Infinity the digit loop would never end) nothing is written, as for NaN: the field is left empty.
+ */
 export function fixedReference(buf: Uint8Array, pos: number, x: number, decimals: number): number {
   if (!Number.isFinite(x)) return pos;
   let p = pos;
   const scale = POW10[decimals];
+  if (!(Math.abs(x) * scale < 2 ** 53)) return pos;
   const r = Math.round(Math.abs(x) * scale);
   if (x < 0 && r !== 0) buf[p++] = CH_MINUS;
   if (decimals === 0) return uintReference(buf, p, r);
