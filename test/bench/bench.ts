@@ -18,7 +18,7 @@ import { samplesCsv } from '../../src/report/samplesCsv.js';
 import { summaryJson } from '../../src/report/summaryJson.js';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
-const REPEATS = 3;
+const REPEATS = 5;
 
 function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
@@ -69,6 +69,7 @@ async function main(): Promise<void> {
   const parse: number[] = [];
   const parseTyped: number[] = [];
   const report: number[] = [];
+  const reportHtml: number[] = [];
   let rss = 0;
   let parseRss = 0;
   for (let k = 0; k < REPEATS; k++) {
@@ -79,6 +80,7 @@ async function main(): Promise<void> {
     const r = child('report', csvPath, workDir);
     report.push(r.ms);
     rss = Math.max(rss, r.maxRssMb);
+    reportHtml.push(child('report-html', csvPath, workDir).ms);
   }
   const ratio = median(report) / median(parse);
   console.log(`whole runs (median of ${REPEATS}, fresh process each; times inside the process, after module loading):`);
@@ -86,6 +88,7 @@ async function main(): Promise<void> {
   console.log(`  papaparse parse, header + dynamicTyping        ${median(parseTyped).toFixed(0)} ms`);
   console.log(`  report run (HTML + samples CSV + summary)      ${median(report).toFixed(0)} ms, peak RSS ${rss.toFixed(0)} MB`);
   console.log(`  RATIO report / parse                           ${ratio.toFixed(2)}×  (vs typed parse ${(median(report) / median(parseTyped)).toFixed(2)}×)`);
+  console.log(`  report run, HTML only (the command's default)  ${median(reportHtml).toFixed(0)} ms, ratio ${(median(reportHtml) / median(parse)).toFixed(2)}×`);
 
   // A million samples (about 28 hours at 10 Hz): peak memory of the whole report run.
   if (process.env.BENCH_SKIP_MILLION !== '1') {

@@ -1,5 +1,5 @@
 // One measured run in a fresh process: 'parse' (bare papaparse of the file, the baseline) or 'report'
-// (the whole report command). Prints one JSON line: wall time inside the process and its peak RSS.
+// (the whole report command with all three outputs) or 'report-html' (the command's default output only). Prints one JSON line: wall time inside the process and its peak RSS.
 import { readFileSync } from 'node:fs';
 import Papa from 'papaparse';
 import { run } from '../../cli/run.js';
@@ -17,10 +17,12 @@ async function main(): Promise<void> {
     const text = readFileSync(file, 'utf8');
     const parsed = Papa.parse<Record<string, unknown>>(text, { header: true, dynamicTyping: true, skipEmptyLines: true });
     rows = parsed.data.length;
-  } else if (mode === 'report') {
+  } else if (mode === 'report' || mode === 'report-html') {
+    // 'report': all three outputs; 'report-html': the command's default, the debrief page alone.
     let err = '';
+    const extra = mode === 'report' ? ['--samples', `${outDir}/bench-samples.csv`, '--json', `${outDir}/bench-summary.json`] : [];
     const code = await run(
-      ['report', file, '--out', `${outDir}/bench.html`, '--samples', `${outDir}/bench-samples.csv`, '--json', `${outDir}/bench-summary.json`, '--quiet'],
+      ['report', file, '--out', `${outDir}/bench.html`, ...extra, '--quiet'],
       { stdout: () => {}, stderr: (t) => (err += t), isTty: false, env: {}, cwd: outDir },
     );
     if (code !== 0) throw new Error(`report exited ${code}: ${err}`);
