@@ -45,9 +45,14 @@ const NMEA_SENTENCE = /^\s*(?:[^$!]{0,40}?)[$!][A-Z]{2}[A-Z]{3},/;
 const IGC_A_RECORD = /^A[A-Z0-9]{3}/;
 const IGC_B_RECORD = /^B\d{6}\d{7}[NS]\d{8}[EW][AV]/;
 
-/** A header line and data lines that split into the same number (≥ 2) of fields on one of , ; tab |. */
+/**
+ * A header line and data lines that split into the same number (≥ 2) of fields on one of , ; tab |; or a
+ * lone line of at least 3 such fields (a header without data: the CSV reader then says so, which tells the
+ * user more than "not a flight log").
+ */
 function looksDelimited(lines: string[]): boolean {
   const body = lines.filter((l) => !l.startsWith('#'));
+  if (body.length === 1) return [',', ';', '\t', '|'].some((d) => body[0].split(d).length >= 3);
   if (body.length < 2) return false;
   for (const d of [',', ';', '\t', '|']) {
     const fields = (l: string) => l.split(d).length;

@@ -38,6 +38,11 @@ describe('detectFormat: by content, not by file name', () => {
     expect(detectTextFormat('time;lat;lon\n2026-05-04T10:00:00Z;52;1\n')).toBe('csv');
   });
 
+  it('takes a lone header line of three or more fields as CSV (so the reader can say it has no data rows), not a lone line of prose', () => {
+    expect(detectTextFormat('time,lat,lon\n')).toBe('csv');
+    expect(() => detectTextFormat('Dear pilot, hello\n')).toThrow(/not a flight log/);
+  });
+
   it('refuses binary junk with a hint listing the supported formats', () => {
     const junk = readFileSync(new URL('../fixtures/import/binary-junk.bin', import.meta.url));
     try {
