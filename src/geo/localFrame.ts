@@ -3,6 +3,19 @@
 // azimuth/distance of a small NED offset.
 import { DEG, RAD, WGS84_A_M, WGS84_E2 } from '../constants.js';
 
+/** The ECEF→NED rotation (rows north, east, down in ECEF axes) from the sines and cosines of latitude and longitude, into out[o..o+8]. */
+function rotationFromSinCos(out: Float64Array, o: number, sL: number, cL: number, sO: number, cO: number): void {
+  out[o] = -sL * cO;
+  out[o + 1] = -sL * sO;
+  out[o + 2] = cL;
+  out[o + 3] = -sO;
+  out[o + 4] = cO;
+  out[o + 5] = 0;
+  out[o + 6] = -cL * cO;
+  out[o + 7] = -cL * sO;
+  out[o + 8] = -sL;
+}
+
 /**
  * Writes the ECEF position [m] of a geodetic point (lat, lon [deg], ellipsoidal height [m]) into
  * out[o], out[o+1], out[o+2]. Same formula as `geodeticToEcef` (NIMA TR8350.2 eq. 4-14), no object.
@@ -33,15 +46,7 @@ export function geodeticToEcefNedInto(latDeg: number, lonDeg: number, hM: number
   out[o] = (nM + hM) * cL * cO;
   out[o + 1] = (nM + hM) * cL * sO;
   out[o + 2] = (nM * (1 - WGS84_E2) + hM) * sL;
-  rot[ro] = -sL * cO;
-  rot[ro + 1] = -sL * sO;
-  rot[ro + 2] = cL;
-  rot[ro + 3] = -sO;
-  rot[ro + 4] = cO;
-  rot[ro + 5] = 0;
-  rot[ro + 6] = -cL * cO;
-  rot[ro + 7] = -cL * sO;
-  rot[ro + 8] = -sL;
+  rotationFromSinCos(rot, ro, sL, cL, sO, cO);
 }
 
 /** Semi-minor axis b = a(1 − f) [m] and second eccentricity squared e'² = e²/(1 − e²) (NIMA TR8350.2 table 3.3). */
@@ -90,15 +95,7 @@ function geodeticOfEcef(x: number, y: number, z: number, out: Float64Array, o: n
   if (rot === undefined) return;
   const sO = p > 0 ? y / p : Math.sin(lon);
   const cO = p > 0 ? x / p : Math.cos(lon);
-  rot[ro] = -sL * cO;
-  rot[ro + 1] = -sL * sO;
-  rot[ro + 2] = cL;
-  rot[ro + 3] = -sO;
-  rot[ro + 4] = cO;
-  rot[ro + 5] = 0;
-  rot[ro + 6] = -cL * cO;
-  rot[ro + 7] = -cL * sO;
-  rot[ro + 8] = -sL;
+  rotationFromSinCos(rot, ro, sL, cL, sO, cO);
 }
 
 /**
@@ -112,15 +109,7 @@ export function nedRotationInto(latDeg: number, lonDeg: number, out: Float64Arra
   const cL = Math.cos(lat);
   const sO = Math.sin(lon);
   const cO = Math.cos(lon);
-  out[o] = -sL * cO;
-  out[o + 1] = -sL * sO;
-  out[o + 2] = cL;
-  out[o + 3] = -sO;
-  out[o + 4] = cO;
-  out[o + 5] = 0;
-  out[o + 6] = -cL * cO;
-  out[o + 7] = -cL * sO;
-  out[o + 8] = -sL;
+  rotationFromSinCos(out, o, sL, cL, sO, cO);
 }
 
 /**
