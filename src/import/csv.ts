@@ -386,8 +386,8 @@ function copyOf(bytes: Uint8Array, start: number, end = bytes.length): Uint8Arra
 /**
  * Feeds the UTF-8 bytes of a delimited text to a CsvRowSink in chunks of any size (a file read as a
  * stream): each chunk is cut after its last line break and the complete lines are read; the rest waits
- * for the next chunk. Lines of a text without quote characters are read in place (CsvRowSink.rowInPlace);
- * text with quotes is decoded and goes through papaparse. Line numbers continue across chunks.
+ * for the next chunk. Lines after a chunk's last quote character are read in place (CsvRowSink.rowInPlace);
+ * the lines before it are decoded and go through papaparse. Line numbers continue across chunks.
  * Limitation: a quoted field holding a line break that straddles two chunks is split (such fields do not
  * occur in flight logs; common practice).
  */
@@ -441,12 +441,28 @@ export class CsvChunkReader {
     return this.sink.finish(endedWithNewline);
   }
 
+  /**
+   * Lines up to the one holding the chunk's last quote character go through papaparse; the lines after it
+   * hold no quote, so no quoted field can open or close there, and they are read in place (a file with a
+   * quoted header line and plain data is read almost wholly in place).
+   */
   private parse(body: Uint8Array): void {
-    if (this.dialect.newline !== '\r' && body.indexOf(34 /* " */) < 0) {
+    if (this.dialect.newline === '\r') {
+      this.parseWithQuotes(this.decoder.decode(body));
+      return;
+    }
+    const lastQuote = body.lastIndexOf(34 /* " */);
+    if (lastQuote < 0) {
       this.parseQuoteFree(body);
       return;
     }
-    this.parseWithQuotes(this.decoder.decode(body));
+    const lineEnd = body.indexOf(10, lastQuote);
+    if (lineEnd < 0 || lineEnd === body.length - 1) {
+      this.parseWithQuotes(this.decoder.decode(body));
+      return;
+    }
+    this.parseWithQuotes(this.decoder.decode(body.subarray(0, lineEnd + 1)));
+    this.parseQuoteFree(body.subarray(lineEnd + 1));
   }
 
   /** Text with quote characters (or old Mac line breaks), through papaparse. */

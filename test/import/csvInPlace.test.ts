@@ -124,6 +124,29 @@ describe('parseCsv: the in-place way reads as the papaparse way does', () => {
     );
   });
 
+  it('reads a quoted header with plain data rows as papaparse reads the whole text', () => {
+    fc.assert(
+      fc.property(fc.array(row, { minLength: 1, maxLength: 30 }), fc.boolean(), (rows, crlf) => {
+        const nl = crlf ? '\r\n' : '\n';
+        const text = ['"time","lat","lon","alt_ft","gs_kt"', ...rows].join(nl) + nl;
+        let a: unknown;
+        let b: unknown;
+        try {
+          a = essence(parseCsv(text, 'q.csv'));
+        } catch (err) {
+          a = String(err);
+        }
+        try {
+          b = essence(parseCsv(`${text}#"${nl}`, 'q.csv'));
+        } catch (err) {
+          b = String(err);
+        }
+        expect(a).toEqual(b);
+      }),
+      { numRuns: 800 },
+    );
+  });
+
   it('keeps line numbers across lone line feeds in a CRLF file and across chunks', () => {
     const text = 'time,lat,lon\r\n2026-05-04T10:00:00Z,52,1\r\n\n2026-05-04T10:00:01Z,52,1\r\n';
     const ref = parseCsv(`${text}#"\r\n`, 'c.csv');
