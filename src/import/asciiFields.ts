@@ -53,35 +53,68 @@ function twoDigits(bytes: Uint8Array, i: number): number {
 }
 
 /**
- * `YYYY-MM-DDThh:mm:ss[.fraction]Z` (ISO 8601-1:2019 §5.4.2 extended format in UTC, the layout receivers
- * and our own writers use) in bytes[start, end) to seconds since the Unix epoch; NaN for anything else.
- * Same arithmetic as parseIsoDateTime: the fraction is one correctly rounded division.
+ * An ISO 8601-1:2019 §5.4.2 extended-format date-time written without blanks around it, in bytes[start, end):
+ * `YYYY-MM-DD`, `T`, `t` or a space (RFC 3339 §5.6), `hh:mm[:ss[.fraction]]` (point or comma, at most 15
+ * fraction digits), then `Z`, `±hh:mm`, `±hhmm`, `±hh` or no zone (then local time `noZoneOffsetMin` east of
+ * UTC), to seconds since the Unix epoch; NaN for anything else. The same grammar, checks and arithmetic as
+ * parseIsoDateTime (isoTime.ts), whose regular expression is the general way.
  */
-export function parseIsoUtcBytes(bytes: Uint8Array, start: number, end: number): number {
-  const len = end - start;
+export function parseIsoBytes(bytes: Uint8Array, start: number, end: number, noZoneOffsetMin: number): number {
   const s = start;
-  if (len < 20 || bytes[end - 1] !== 90 /* Z */ || bytes[s + 4] !== 45 || bytes[s + 7] !== 45 || bytes[s + 10] !== 84 /* T */ ||
-    bytes[s + 13] !== 58 || bytes[s + 16] !== 58) return NaN;
+  if (end - s < 16 || bytes[s + 4] !== 45 || bytes[s + 7] !== 45 || bytes[s + 13] !== 58) return NaN;
+  const sep = bytes[s + 10];
+  if (sep !== 84 /* T */ && sep !== 116 /* t */ && sep !== 32) return NaN;
   const y1 = twoDigits(bytes, s);
   const y2 = twoDigits(bytes, s + 2);
   const month = twoDigits(bytes, s + 5);
   const day = twoDigits(bytes, s + 8);
   const hour = twoDigits(bytes, s + 11);
   const minute = twoDigits(bytes, s + 14);
-  const second = twoDigits(bytes, s + 17);
-  if (y1 < 0 || y2 < 0 || month < 0 || day < 0 || hour < 0 || minute < 0 || second < 0) return NaN;
+  if (y1 < 0 || y2 < 0 || month < 0 || day < 0 || hour < 0 || minute < 0) return NaN;
+  let i = s + 16;
+  let second = 0;
+  let fraction = 0;
+  if (i < end && bytes[i] === 58 /* : */) {
+    second = twoDigits(bytes, i + 1);
+    if (second < 0 || i + 3 > end) return NaN;
+    i += 3;
+    if (i < end && (bytes[i] === 46 || bytes[i] === 44)) {
+      let num = 0;
+      let k = 0;
+      for (i++; i < end; i++, k++) {
+        const v = bytes[i] - 48;
+        if (v < 0 || v > 9) break;
+        num = num * 10 + v;
+      }
+      if (k === 0 || k > 15) return NaN;
+      // One correctly rounded division, as Number('0.…') gives.
+      fraction = num / 10 ** k;
+    }
+  }
+  let offsetMin = noZoneOffsetMin;
+  if (i < end) {
+    const z = bytes[i];
+    if (z === 90 /* Z */ || z === 122 /* z */) {
+      offsetMin = 0;
+      i++;
+    } else if (z === 43 /* + */ || z === 45 /* - */) {
+      const oh = twoDigits(bytes, i + 1);
+      if (oh < 0 || i + 3 > end) return NaN;
+      i += 3;
+      let om = 0;
+      if (i < end && bytes[i] === 58) i++;
+      if (i < end) {
+        om = twoDigits(bytes, i);
+        if (om < 0 || i + 2 > end) return NaN;
+        i += 2;
+      }
+      if (oh > 18 || om > 59) return NaN;
+      offsetMin = (z === 45 ? -1 : 1) * (oh * 60 + om);
+    } else return NaN;
+  }
+  if (i !== end) return NaN;
   const year = y1 * 100 + y2;
   if (month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month) || hour > 23 || minute > 59 || second > 60) return NaN;
-  let fraction = 0;
-  if (len > 20) {
-    if (bytes[s + 19] !== 46 /* . */ || len === 21 || len > 36) return NaN;
-    let num = 0;
-    for (let i = s + 20; i < end - 1; i++) {
-      const v = bytes[i] - 48;
-      if (v < 0 || v > 9) return NaN;
-      num = num * 10 + v;
-    }
-    fraction = num / 10 ** (len - 21);
-  }
-  return daysFromCivil(year, month, day) * 86400 + hour * 3600 + minute * 60 + second + fraction;
+  const whole = daysFromCivil(year, month, day) * 86400 + hour * 3600 + minute * 60 + second;
+  return whole + fraction - offsetMin * 60;
 }

@@ -5,7 +5,7 @@ import type { FlightLog, LogWarning, OptionalColumn } from '../log/flightLog.js'
 import { LineTally, plural, pushTally } from '../log/logWarnings.js';
 import { planCsvColumns, ROLE_COLUMN, type CsvColumn, type CsvPlan, type CsvRole, type CsvTimeKind } from './csvColumns.js';
 import { detectCsvDialect, type CsvDelimiter, type CsvDialect } from './csvDialect.js';
-import { COMMA, POINT, parseIsoUtcBytes, parsePlainDecimalBytes } from './asciiFields.js';
+import { COMMA, POINT, parseIsoBytes, parsePlainDecimalBytes } from './asciiFields.js';
 import { isoHasZone, parseIsoDate, parseIsoDateTime, parseTimeOfDay } from './isoTime.js';
 import { LogBuilder } from './logBuilder.js';
 import { parseDecimal, parseDecimalComma } from './parseNumber.js';
@@ -195,13 +195,13 @@ export class CsvRowSink {
     return this.rawValue(this.decoder.decode(bytes.subarray(a, b)), col, line, counted);
   }
 
-  /** The time of the line being read in place (n fields) when it is an ISO UTC or Unix time in the plain form; NaN otherwise. */
+  /** The time of the line being read in place (n fields) when it is an ISO 8601 date-time or a Unix time written without blanks; NaN otherwise. */
   private timeInPlace(bytes: Uint8Array, n: number): number {
     const k = this.plan!.columns.time!.index;
     if (k >= n) return NaN;
     const a = this.fieldStarts[k];
     const b = this.fieldStarts[k + 1] - 1;
-    if (this.timeKind === 'iso') return parseIsoUtcBytes(bytes, a, b);
+    if (this.timeKind === 'iso') return parseIsoBytes(bytes, a, b, this.opts.tzOffsetMin ?? 0);
     const v = parsePlainDecimalBytes(bytes, a, b, this.pointCode);
     return this.timeKind === 'epoch-ms' ? v / 1e3 : this.timeKind === 'epoch-us' ? v / 1e6 : v;
   }
