@@ -118,3 +118,47 @@ export function parseIsoBytes(bytes: Uint8Array, start: number, end: number, noZ
   const whole = daysFromCivil(year, month, day) * 86400 + hour * 3600 + minute * 60 + second;
   return whole + fraction - offsetMin * 60;
 }
+
+/**
+ * A time of day `h:mm`, `hh:mm`, `hh:mm:ss` or `hh:mm:ss.fff` (point or comma, at most 15 fraction digits)
+ * written without blanks in bytes[start, end), to seconds after midnight; NaN for anything else. The
+ * grammar, range checks and arithmetic of parseTimeOfDay (isoTime.ts).
+ */
+export function parseTimeOfDayBytes(bytes: Uint8Array, start: number, end: number): number {
+  let i = start;
+  const h0 = bytes[i] - 48;
+  if (!(h0 >= 0 && h0 <= 9)) return NaN;
+  let hour = h0;
+  i++;
+  const h1 = bytes[i] - 48;
+  if (i < end && h1 >= 0 && h1 <= 9) {
+    hour = h0 * 10 + h1;
+    i++;
+  }
+  if (!(i < end && bytes[i] === 58)) return NaN;
+  const minute = twoDigits(bytes, i + 1);
+  if (minute < 0 || i + 3 > end) return NaN;
+  i += 3;
+  let second = 0;
+  let fraction = 0;
+  if (i < end) {
+    if (bytes[i] !== 58) return NaN;
+    second = twoDigits(bytes, i + 1);
+    if (second < 0 || i + 3 > end) return NaN;
+    i += 3;
+    if (i < end) {
+      if (bytes[i] !== 46 && bytes[i] !== 44) return NaN;
+      let num = 0;
+      let k = 0;
+      for (i++; i < end; i++, k++) {
+        const v = bytes[i] - 48;
+        if (v < 0 || v > 9) return NaN;
+        num = num * 10 + v;
+      }
+      if (k === 0 || k > 15) return NaN;
+      fraction = num / 10 ** k;
+    }
+  }
+  if (hour > 23 || minute > 59 || second > 60) return NaN;
+  return hour * 3600 + minute * 60 + second + fraction;
+}

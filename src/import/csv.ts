@@ -5,7 +5,7 @@ import type { FlightLog, LogWarning, OptionalColumn } from '../log/flightLog.js'
 import { LineTally, plural, pushTally } from '../log/logWarnings.js';
 import { planCsvColumns, ROLE_COLUMN, type CsvColumn, type CsvPlan, type CsvRole, type CsvTimeKind } from './csvColumns.js';
 import { detectCsvDialect, type CsvDelimiter, type CsvDialect } from './csvDialect.js';
-import { COMMA, POINT, parseIsoBytes, parsePlainDecimalBytes } from './asciiFields.js';
+import { COMMA, POINT, parseIsoBytes, parsePlainDecimalBytes, parseTimeOfDayBytes } from './asciiFields.js';
 import { isoHasZone, parseIsoDate, parseIsoDateTime, parseTimeOfDay } from './isoTime.js';
 import { LogBuilder } from './logBuilder.js';
 import { parseDecimal, parseDecimalComma } from './parseNumber.js';
@@ -78,6 +78,9 @@ export class CsvRowSink {
   private dayOffsetS = 0;
   private lastTimeOfDayS = NaN;
   private lastDateRaw = '';
+  /** The date column's bytes in the last row read in place, and the day they give [s]. */
+  private lastDateBytes: Uint8Array = new Uint8Array(0);
+  private lastDateBytesS = NaN;
   private lastDateS = NaN;
   private recordsRead = 0;
   private recordsDropped = 0;
@@ -131,12 +134,12 @@ export class CsvRowSink {
   /**
    * The same as row() for the line bytes[start, end) (line break excluded) of UTF-8 text without quote
    * characters, split at the delimiter as papaparse splits such text; the planned columns are read in
-   * place from the bytes, with no string per field. The header line, times of day, rows whose time is not
-   * in the plain form and any field not in the plain form are decoded and go the way of row() or of its
-   * field readers, so the result is the same.
+   * place from the bytes, with no string per field. The header line, rows whose time is not in the plain
+   * form and any field not in the plain form are decoded and go the way of row() or of its field readers,
+   * so the result is the same.
    */
   rowInPlace(bytes: Uint8Array, start: number, end: number, line: number): void {
-    if (!this.plan || this.timeKind === 'auto' || this.timeKind === 'time-of-day') {
+    if (!this.plan || this.timeKind === 'auto') {
       this.row(this.fieldsOf(bytes, start, end), line);
       return;
     }
@@ -195,15 +198,46 @@ export class CsvRowSink {
     return this.rawValue(this.decoder.decode(bytes.subarray(a, b)), col, line, counted);
   }
 
-  /** The time of the line being read in place (n fields) when it is an ISO 8601 date-time or a Unix time written without blanks; NaN otherwise. */
+  /** The time of the line being read in place (n fields) when it is an ISO 8601 date-time, a Unix time or a time of day written without blanks; NaN otherwise. */
   private timeInPlace(bytes: Uint8Array, n: number): number {
     const k = this.plan!.columns.time!.index;
     if (k >= n) return NaN;
     const a = this.fieldStarts[k];
     const b = this.fieldStarts[k + 1] - 1;
     if (this.timeKind === 'iso') return parseIsoBytes(bytes, a, b, this.opts.tzOffsetMin ?? 0);
+    if (this.timeKind === 'time-of-day') return this.timeOfDayInPlace(bytes, n, parseTimeOfDayBytes(bytes, a, b));
     const v = parsePlainDecimalBytes(bytes, a, b, this.pointCode);
     return this.timeKind === 'epoch-ms' ? v / 1e3 : this.timeKind === 'epoch-us' ? v / 1e6 : v;
+  }
+
+  /**
+   * timeOfDay() for the line being read in place, given its time of day `tod` [s] (NaN: not in the plain
+   * form, and nothing is changed). The date column's text is decoded only when its bytes change.
+   */
+  private timeOfDayInPlace(bytes: Uint8Array, n: number, tod: number): number {
+    if (tod !== tod) return NaN;
+    const dateCol = this.plan!.columns.date;
+    let dayS: number;
+    if (dateCol) {
+      const k = dateCol.index;
+      if (k >= n) return NaN;
+      const a = this.fieldStarts[k];
+      const b = this.fieldStarts[k + 1] - 1;
+      const last = this.lastDateBytes;
+      let same = last.length === b - a;
+      for (let i = 0; same && i < last.length; i++) same = last[i] === bytes[a + i];
+      if (!same) {
+        this.lastDateBytes = bytes.slice(a, b);
+        this.lastDateBytesS = parseDateField(this.decoder.decode(this.lastDateBytes).trim());
+      }
+      dayS = this.lastDateBytesS;
+    } else {
+      // As in timeOfDay(): a time of day more than 12 h earlier than the last is the next day.
+      if (Number.isFinite(this.lastTimeOfDayS) && tod < this.lastTimeOfDayS - 43200) this.dayOffsetS += 86400;
+      this.lastTimeOfDayS = tod;
+      dayS = this.optionDateS + this.dayOffsetS;
+    }
+    return dayS + tod - (this.opts.tzOffsetMin ?? 0) * 60;
   }
 
   private header(fields: string[], line: number): void {

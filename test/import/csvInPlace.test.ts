@@ -5,9 +5,9 @@
 // reading of the same text for the split into rows and fields.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { COMMA, POINT, parseIsoBytes, parsePlainDecimalBytes } from '../../src/import/asciiFields.js';
+import { COMMA, POINT, parseIsoBytes, parsePlainDecimalBytes, parseTimeOfDayBytes } from '../../src/import/asciiFields.js';
 import { parseCsv } from '../../src/import/csv.js';
-import { parseIsoDateTime } from '../../src/import/isoTime.js';
+import { parseIsoDateTime, parseTimeOfDay } from '../../src/import/isoTime.js';
 import { parseDecimal, parseDecimalComma } from '../../src/import/parseNumber.js';
 import type { FlightLog } from '../../src/log/flightLog.js';
 
@@ -95,6 +95,27 @@ describe('parseIsoBytes', () => {
   });
 });
 
+describe('parseTimeOfDayBytes', () => {
+  it('equals parseTimeOfDay on random times of day, in range or not, with point or comma fractions', () => {
+    const text = fc.oneof(
+      fc
+        .tuple(fc.integer({ min: 0, max: 25 }), fc.boolean(), fc.integer({ min: 0, max: 61 }), fc.option(fc.integer({ min: 0, max: 61 })), fc.stringMatching(/^[0-9]{0,17}$/), fc.constantFrom('.', ','))
+        .map(([h, pad, m, sec, f, p]) => `${pad ? String(h).padStart(2, '0') : h}:${String(m).padStart(2, '0')}${sec === null ? '' : `:${String(sec).padStart(2, '0')}${f ? p + f : ''}`}`),
+      fc.stringMatching(/^[0-9:., ]{0,12}$/),
+    );
+    fc.assert(
+      fc.property(text, (t) => {
+        const v = parseTimeOfDayBytes(ascii(t), 0, t.length);
+        const ref = parseTimeOfDay(t);
+        // NaN from the byte reader means "the general way decides" (blanks, more than 15 fraction digits).
+        if (Number.isNaN(v) && !Number.isNaN(ref)) expect(/^\s|\s$|[.,]\d{16,}/.test(t)).toBe(true);
+        else expect(Object.is(v, ref) || (Number.isNaN(v) && Number.isNaN(ref))).toBe(true);
+      }),
+      { numRuns: 30000 },
+    );
+  });
+});
+
 /** The log's columns and what the reader said, for comparing two readings of the same rows. */
 function essence(log: FlightLog) {
   const cols: Record<string, number[]> = {};
@@ -160,6 +181,30 @@ describe('parseCsv: the in-place way reads as the papaparse way does', () => {
           b = String(err);
         }
         expect(a).toEqual(b);
+      }),
+      { numRuns: 800 },
+    );
+  });
+
+  it('reads times of day (with a date column, or one date and midnight roll-over) as the papaparse way does', () => {
+    const tod = fc.oneof(
+      { weight: 8, arbitrary: fc.integer({ min: 0, max: 86399 }).map((s) => new Date(s * 1000).toISOString().slice(11, 21)) },
+      { weight: 1, arbitrary: fc.constantFrom('', '25:00:00', '9:05', ' 10:00:00', '10:00:00,25', 'noon') },
+    );
+    const date = fc.constantFrom('2026-05-04', '2026-05-05', '04.05.2026', '2026/05/06', '', 'bad');
+    fc.assert(
+      fc.property(fc.array(fc.tuple(date, tod, field, field), { minLength: 1, maxLength: 30 }), fc.boolean(), (rows, withDate) => {
+        const lines = withDate ? ['date,time,lat,lon', ...rows.map(([d, t, a, b]) => `${d},${t},${a},${b}`)] : ['time,lat,lon', ...rows.map(([, t, a, b]) => `${t},${a},${b}`)];
+        const text = lines.join('\n') + '\n';
+        const opts = withDate ? { tzOffsetMin: 60 } : { date: '2026-05-04' };
+        const read = (t: string) => {
+          try {
+            return essence(parseCsv(t, 'tod.csv', opts));
+          } catch (err) {
+            return String(err);
+          }
+        };
+        expect(read(text)).toEqual(read(`${text}#"\n`));
       }),
       { numRuns: 800 },
     );
