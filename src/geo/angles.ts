@@ -2,7 +2,8 @@
 
 /** Wraps an angle to [0, 360). NaN stays NaN. */
 export function wrap360(deg: number): number {
-  const r = deg % 360;
+  // No remainder where |deg| < 360, nearly every angle of a flight: there deg % 360 is deg exactly (ECMA-262 §6.1.6.1.6).
+  const r = deg < 360 && deg > -360 ? deg : deg % 360;
   const w = r < 0 ? r + 360 : r;
   return w === 360 ? 0 : w + 0; // + 0 turns -0 into 0
 }

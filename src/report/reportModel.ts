@@ -13,7 +13,7 @@ import { localPlanNm } from './localPlanNm.js';
 import { maxRangeNm } from './maxRangeNm.js';
 import { fmtCount } from './pilotFormat.js';
 import { kthSmallestInPlace } from './kthSmallestInPlace.js';
-import { wrap360Fast } from './wrapAngleFast.js';
+import { wrap360 } from '../geo/angles.js';
 import type {
   ReportDivergenceRow,
   ReportErrorPeak,
@@ -65,7 +65,7 @@ export function buildReportModel(a: FlightAnalysis, opts: ReportModelOptions = {
   const n = s.n;
 
   const headingMagDeg = new Float64Array(n);
-  for (let i = 0; i < n; i++) headingMagDeg[i] = wrap360Fast(s.headingDegTrue[i] - f.variationDeg[i]);
+  for (let i = 0; i < n; i++) headingMagDeg[i] = wrap360(s.headingDegTrue[i] - f.variationDeg[i]);
   const first = firstFiniteFix(s.lat, s.lon);
   const plan = localPlanNm(s.lat, s.lon, s.lat[first] ?? 0, s.lon[first] ?? 0);
 

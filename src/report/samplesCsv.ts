@@ -1,7 +1,7 @@
 // The samples CSV: one row per sample, the contract columns of DESIGN.md first, the error split after them.
 import { KT_MS } from '../constants.js';
 import type { FlightAnalysis } from '../flightAnalysis.js';
-import { wrap180Fast, wrap360Fast } from './wrapAngleFast.js';
+import { wrap180, wrap360 } from '../geo/angles.js';
 import { AsciiRowWriter, roundNonNegative31, writeFixed, writeScaled31, writeTwoDigits, writeUint } from './asciiRowWriter.js';
 
 const POW10 = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9];
@@ -50,7 +50,7 @@ export const SAMPLES_EXTRA_COLUMNS = [
 /** An angle wrapped to [0, 360) with `digits` decimals; a value that would round to 360 is written as 0. */
 function writeAngle360(buf: Uint8Array, pos: number, x: number, digits: number): number {
   if (!Number.isFinite(x)) return pos;
-  const v = wrap360Fast(x); // 0 ≤ v < 360, so |v|·10^digits is far below 2^31
+  const v = wrap360(x); // 0 ≤ v < 360, so |v|·10^digits is far below 2^31
   const scale = POW10[digits];
   const r = roundNonNegative31(v * scale);
   return writeScaled31(buf, pos, false, r >= 360 * scale ? 0 : r, digits);
@@ -58,7 +58,7 @@ function writeAngle360(buf: Uint8Array, pos: number, x: number, digits: number):
 
 /** A signed angle wrapped to (−180, 180] with `digits` decimals. */
 function writeAngle180(buf: Uint8Array, pos: number, x: number, digits: number): number {
-  return Number.isFinite(x) ? writeFixed(buf, pos, wrap180Fast(x), digits) : pos;
+  return Number.isFinite(x) ? writeFixed(buf, pos, wrap180(x), digits) : pos;
 }
 
 /** ASCII bytes of "YYYY-MM-DDT" for UTC day number d (days since 1970-01-01). */

@@ -5,7 +5,6 @@ import { circularMeanDeg, wrap180, wrap360 } from '../geo/angles.js';
 import type { FlightAnalysis } from '../flightAnalysis.js';
 import { ZONE_BLACKOUT, ZONE_CAUTION } from '../magnetic/fieldAlongPath.js';
 import { kthSmallestInPlace } from './kthSmallestInPlace.js';
-import { wrap180Fast } from './wrapAngleFast.js';
 
 /** Version of the summary layout; bump when a field changes meaning. The JSON Schema is summary.schema.json. */
 export const SUMMARY_SCHEMA_VERSION = '1';
@@ -84,7 +83,7 @@ function driftSummary(s: FlightAnalysis['state']): { median_deg: number | null; 
   let min = Infinity;
   let max = -Infinity;
   for (let i = 0; i < s.n; i++) {
-    const v = wrap180Fast(s.trackDegTrue[i] - s.headingDegTrue[i]);
+    const v = wrap180(s.trackDegTrue[i] - s.headingDegTrue[i]);
     if (!Number.isFinite(v)) continue;
     d[k++] = v;
     if (v < min) min = v;
