@@ -12,7 +12,7 @@ import { largestErrorPeaks } from './largestErrorPeaks.js';
 import { localPlanNm } from './localPlanNm.js';
 import { maxRangeNm } from './maxRangeNm.js';
 import { fmtCount } from './pilotFormat.js';
-import { kthSmallestInPlace } from './kthSmallestInPlace.js';
+import { kthSmallestInPlace } from '../util/kthSmallestInPlace.js';
 import { wrap360 } from '../geo/angles.js';
 import type {
   ReportDivergenceRow,

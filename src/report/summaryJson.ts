@@ -4,7 +4,7 @@ import { KT_MS } from '../constants.js';
 import { circularMeanDeg, wrap180, wrap360 } from '../geo/angles.js';
 import type { FlightAnalysis } from '../flightAnalysis.js';
 import { ZONE_BLACKOUT, ZONE_CAUTION } from '../magnetic/fieldAlongPath.js';
-import { kthSmallestInPlace } from './kthSmallestInPlace.js';
+import { kthSmallestInPlace } from '../util/kthSmallestInPlace.js';
 
 /** Version of the summary layout; bump when a field changes meaning. The JSON Schema is summary.schema.json. */
 export const SUMMARY_SCHEMA_VERSION = '1';

@@ -1,6 +1,7 @@
 // Splitting a time column into segments at gaps. Nothing is invented inside a gap: each segment is
 // smoothed on its own and the state restarts after it.
 import { OptionError } from '../errors.js';
+import { kthSmallestInPlace } from '../util/kthSmallestInPlace.js';
 
 /** Least gap threshold [s] whatever the sampling rate [practice]. */
 export const MIN_GAP_S = 5;
@@ -32,37 +33,12 @@ export function medianPositiveStepS(t: Float64Array): number {
   if (k === 0) return NaN;
   const s = steps.subarray(0, k);
   const m = k >> 1;
-  const hi = selectInPlace(s, m);
+  const hi = kthSmallestInPlace(s, m);
   if (k % 2 === 1) return hi;
   // After the selection everything left of m is ≤ s[m]: the lower middle is their maximum.
   let lo = s[0];
   for (let i = 1; i < m; i++) if (s[i] > lo) lo = s[i];
   return 0.5 * (lo + hi);
-}
-
-/**
- * The k-th smallest value (0-based) of a NaN-free array, reordering it so that a[i] ≤ a[k] for i < k and
- * a[i] ≥ a[k] for i > k: Hoare's selection (FIND, C. A. R. Hoare, CACM 4(7), 1961) in N. Wirth's form
- * (Algorithms + Data Structures = Programs, 1976). Expected O(n) instead of a sort's O(n log n).
- */
-function selectInPlace(a: Float64Array, k: number): number {
-  let l = 0, r = a.length - 1;
-  while (l < r) {
-    const x = a[(l + r) >> 1];
-    let i = l, j = r;
-    do {
-      while (a[i] < x) i++;
-      while (x < a[j]) j--;
-      if (i <= j) {
-        const w = a[i]; a[i] = a[j]; a[j] = w;
-        i++;
-        j--;
-      }
-    } while (i <= j);
-    if (j < k) l = i;
-    if (k < i) r = j;
-  }
-  return a[k];
 }
 
 /**

@@ -1,7 +1,7 @@
 // Quickselect against the plain definition: the k-th entry of the sorted copy.
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { kthSmallestInPlace } from '../../src/report/kthSmallestInPlace.js';
+import { kthSmallestInPlace } from '../../src/util/kthSmallestInPlace.js';
 
 describe('kthSmallestInPlace (Hoare FIND)', () => {
   it('returns the entry at k of the ascending sort for any array and k (fast-check against Float64Array.prototype.sort)', () => {
@@ -16,6 +16,20 @@ describe('kthSmallestInPlace (Hoare FIND)', () => {
         },
       ),
       { numRuns: 3000, seed: 61 },
+    );
+  });
+
+  it('leaves the array split at k: nothing larger before it, nothing smaller after it (what the median of an even count relies on)', () => {
+    fc.assert(
+      fc.property(fc.array(fc.integer({ min: -50, max: 50 }), { minLength: 1, maxLength: 300 }), fc.nat(), (xs, kRaw) => {
+        const k = kRaw % xs.length;
+        const a = Float64Array.from(xs);
+        const v = kthSmallestInPlace(a, k);
+        expect(a[k]).toBe(v);
+        for (let i = 0; i < k; i++) expect(a[i] <= v).toBe(true);
+        for (let i = k + 1; i < a.length; i++) expect(a[i] >= v).toBe(true);
+      }),
+      { numRuns: 3000, seed: 62 },
     );
   });
 

@@ -3,7 +3,8 @@
 /**
  * The value that would stand at index k of `values` sorted ascending, in O(n) expected time: C. A. R. Hoare,
  * "Algorithm 65: Find", Comm. ACM 4(7), 1961, with the middle of three as the pivot. Reorders `values`
- * (a scratch copy, not the caller's column).
+ * (a scratch copy, not the caller's column) so that afterwards values[i] ≤ values[k] for i < k and
+ * values[i] ≥ values[k] for i > k.
  *
  * @param values finite numbers (no NaN; −0 and 0 count as equal), length ≥ 1
  * @param k index 0 ≤ k < values.length
