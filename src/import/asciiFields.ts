@@ -1,8 +1,29 @@
-// Numbers and UTC times read in place from the bytes of a text file (ASCII fields of UTF-8 text), with no
-// string per field: the reading of large delimited logs. Each reader gives NaN for anything outside its
+// Numbers and times read by byte codes: in place from the bytes of a text file (ASCII fields of UTF-8
+// text, with no string per field: the reading of large delimited logs), and for the string readers of
+// parseNumber.ts and isoTime.ts through a scratch copy. Each reader gives NaN for anything outside its
 // plain form, and the caller then decodes the field and takes the general (string) way, so the result is
 // always what the string readers of parseNumber.ts and isoTime.ts give.
-import { daysFromCivil, daysInMonth } from './isoTime.js';
+import { daysFromCivil, daysInMonth } from './civilDays.js';
+
+/** Longest text the string readers copy into the scratch buffer to read it by byte codes. */
+const SCRATCH_CHARS = 64;
+const scratch = new Uint8Array(SCRATCH_CHARS);
+
+/**
+ * The text as bytes in a shared scratch buffer, for the string readers (parseDecimal, parseIsoDateTime,
+ * parseTimeOfDay) to use the byte readers here: undefined when it is longer than 64 characters or not
+ * ASCII (then they take their regular expressions). Valid until the next call.
+ */
+export function asciiScratch(text: string): Uint8Array | undefined {
+  const n = text.length;
+  if (n > SCRATCH_CHARS) return undefined;
+  for (let i = 0; i < n; i++) {
+    const c = text.charCodeAt(i);
+    if (c > 127) return undefined;
+    scratch[i] = c;
+  }
+  return scratch;
+}
 
 /** Powers of ten that are exact doubles (10^0 … 10^22). */
 const EXACT_POW10 = Array.from({ length: 23 }, (_, k) => 10 ** k);

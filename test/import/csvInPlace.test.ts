@@ -1,13 +1,14 @@
 // The in-place CSV reader (bytes, no string per field) against the general way (papaparse, then the
-// string readers), and the byte readers of asciiFields.ts against Number() and parseIsoDateTime.
+// string readers), and the byte readers of asciiFields.ts against their regular-expression definitions.
 // Oracles: Number() (ECMA-262 §7.1.4.1.1 StringToNumber, correctly rounded) for decimals; the regex-based
-// parseIsoDateTime of isoTime.ts (checked against Date.UTC in isoTime.test.ts) for times; papaparse's own
-// reading of the same text for the split into rows and fields.
+// parseIsoDateTimeByPattern / parseTimeOfDayByPattern of isoTime.ts for times (parseIsoDateTime, byte
+// reader first, is checked against Date.UTC in isoTime.test.ts); papaparse's own reading of the same text
+// for the split into rows and fields.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { COMMA, POINT, parseIsoBytes, parsePlainDecimalBytes, parseTimeOfDayBytes } from '../../src/import/asciiFields.js';
 import { parseCsv } from '../../src/import/csv.js';
-import { parseIsoDateTime, parseTimeOfDay } from '../../src/import/isoTime.js';
+import { parseIsoDateTimeByPattern, parseTimeOfDayByPattern } from '../../src/import/isoTime.js';
 import { parseDecimal, parseDecimalComma } from '../../src/import/parseNumber.js';
 import type { FlightLog } from '../../src/log/flightLog.js';
 
@@ -53,7 +54,7 @@ describe('parsePlainDecimalBytes', () => {
 });
 
 describe('parseIsoBytes', () => {
-  it('equals parseIsoDateTime on random extended-format date-times (separators, seconds, fractions, zones, impossible dates)', () => {
+  it('equals parseIsoDateTimeByPattern on random extended-format date-times (separators, seconds, fractions, zones, impossible dates)', () => {
     const p2 = (k: number) => String(k).padStart(2, '0');
     const zone = fc.oneof(
       fc.constantFrom('', 'Z', 'z', '+00:00', '-05:30', '+0200', '+02', '-1200', '+19:00', '+05:60'),
@@ -76,7 +77,7 @@ describe('parseIsoBytes', () => {
           const time = sec === null ? `${p2(h)}:${p2(mi)}` : `${p2(h)}:${p2(mi)}:${p2(sec)}${f ? `${point}${f}` : ''}`;
           const text = `${y}-${p2(mo)}-${p2(d)}${sep}${time}${z}`;
           const v = parseIsoBytes(ascii(text), 0, text.length, tzMin);
-          const ref = parseIsoDateTime(text, tzMin);
+          const ref = parseIsoDateTimeByPattern(text, tzMin);
           // NaN from the byte reader means "the general way decides"; it may only do so for more than 15
           // fraction digits where the general way still reads a time.
           if (Number.isNaN(v) && !Number.isNaN(ref)) expect(f.length).toBeGreaterThan(15);
@@ -96,7 +97,7 @@ describe('parseIsoBytes', () => {
 });
 
 describe('parseTimeOfDayBytes', () => {
-  it('equals parseTimeOfDay on random times of day, in range or not, with point or comma fractions', () => {
+  it('equals parseTimeOfDayByPattern on random times of day, in range or not, with point or comma fractions', () => {
     const text = fc.oneof(
       fc
         .tuple(fc.integer({ min: 0, max: 25 }), fc.boolean(), fc.integer({ min: 0, max: 61 }), fc.option(fc.integer({ min: 0, max: 61 })), fc.stringMatching(/^[0-9]{0,17}$/), fc.constantFrom('.', ','))
@@ -106,7 +107,7 @@ describe('parseTimeOfDayBytes', () => {
     fc.assert(
       fc.property(text, (t) => {
         const v = parseTimeOfDayBytes(ascii(t), 0, t.length);
-        const ref = parseTimeOfDay(t);
+        const ref = parseTimeOfDayByPattern(t);
         // NaN from the byte reader means "the general way decides" (blanks, more than 15 fraction digits).
         if (Number.isNaN(v) && !Number.isNaN(ref)) expect(/^\s|\s$|[.,]\d{16,}/.test(t)).toBe(true);
         else expect(Object.is(v, ref) || (Number.isNaN(v) && Number.isNaN(ref))).toBe(true);
