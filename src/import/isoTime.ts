@@ -2,7 +2,6 @@
 import { asciiScratch, parseIsoBytes, parseTimeOfDayBytes } from './asciiFields.js';
 import { daysFromCivil, daysInMonth } from './civilDays.js';
 
-
 // Extended format date-time, as ISO 8601-1:2019 §5.4.2 and RFC 3339 §5.6 write it:
 // YYYY-MM-DD, 'T' (RFC 3339 §5.6 also allows a space), hh:mm[:ss[.fraction]], then Z, ±hh:mm, ±hhmm or ±hh.
 const ISO_DATE_TIME =
