@@ -7,7 +7,7 @@ import { readLogFile, type ReadOptions } from '../import/readLog.js';
 import type { LogFormat } from '../log/flightLog.js';
 import { loadReportAssets } from '../report/loadReportAssets.js';
 import { buildReportModel } from '../report/reportModel.js';
-import { renderReport, type ReportAssets } from '../report/renderReport.js';
+import { renderReportChunks, type ReportAssets } from '../report/renderReport.js';
 import { samplesCsvChunks } from '../report/samplesCsv.js';
 import { summaryJson } from '../report/summaryJson.js';
 import type { PendingOutput } from '../report/writeAtomic.js';
@@ -65,8 +65,9 @@ export async function debriefOneFlight(req: DebriefRequest, settings: DebriefSet
   const analysis = analyseFlight(log, { ...settings.analyse, onStage }, health);
   onStage?.('writing the debrief');
   const assets = settings.assets ?? (await loadReportAssets());
-  const html = renderReport(buildReportModel(analysis, { generatedAt: settings.generatedAt ?? new Date() }), assets);
-  const outputs: PendingOutput[] = [{ path: req.htmlPath, content: html }];
+  // As chunks: the chart library goes out as bytes encoded once per process (a batch writes it per flight).
+  const page = renderReportChunks(buildReportModel(analysis, { generatedAt: settings.generatedAt ?? new Date() }), assets);
+  const outputs: PendingOutput[] = [{ path: req.htmlPath, content: page }];
   if (req.samplesPath !== undefined) outputs.push({ path: req.samplesPath, content: samplesCsvChunks(analysis) });
   if (req.jsonPath !== undefined) outputs.push({ path: req.jsonPath, content: summaryJson(analysis) });
   return { analysis, outputs };

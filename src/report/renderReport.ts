@@ -1,4 +1,5 @@
-// renderReport: ReportModel + template assets → one self-contained, offline HTML page (a string).
+// renderReport: ReportModel + template assets → one self-contained, offline HTML page (a string, or as chunks
+// with the chart library as ready-encoded bytes for writing out).
 import { InputError } from '../errors.js';
 import { escapeHtml, inlineScriptSource, jsonForScriptBlock } from './escapeHtml.js';
 import { fmtCount, fmtDuration, fmtUtcDateTime } from './pilotFormat.js';
@@ -53,6 +54,8 @@ interface InlinedPlotly {
   sha256Base64: ReportAssets['sha256Base64'];
   text: string;
   hash: string;
+  /** `text` as UTF-8, encoded on first use. */
+  bytes?: Uint8Array;
 }
 
 /** The last chart library inlined: the same 4.6 MB text comes with every flight of a process. */
@@ -96,13 +99,18 @@ export function reportCsp(scriptHashes: string[]): string {
   ].join('; ');
 }
 
+/** A page as it is written out: text, and ready-encoded UTF-8 bytes for the long constant parts. */
+export type PageChunk = string | Uint8Array;
+
 /**
  * Replaces each {{NAME}} of the template with values[NAME] in a single pass, so text inserted for one
- * placeholder is never scanned again (a log name holding "{{CSP}}" stays text).
+ * placeholder is never scanned again (a log name holding "{{CSP}}" stays text). Text runs are joined into
+ * one string between byte values.
  * @throws InputError when the template holds a placeholder without a value or lacks one of the values
  */
-export function fillTemplate(template: string, values: Record<string, string>): string {
+export function fillTemplateChunks(template: string, values: Record<string, PageChunk>): PageChunk[] {
   const used = new Set<string>();
+  const chunks: PageChunk[] = [];
   // Pieces joined by +, not String.prototype.replace: the engine links the megabyte-long values instead of
   // copying them into a new string here (the copy happens once, when the page is written out).
   const placeholder = /\{\{([A-Z_]+)\}\}/g;
@@ -113,14 +121,25 @@ export function fillTemplate(template: string, values: Record<string, string>): 
     const v = values[name];
     if (v === undefined) throw new InputError('report-template/report.html', `placeholder {{${name}}} has no value`);
     used.add(name);
-    out += template.slice(from, m.index) + v;
+    out += template.slice(from, m.index);
+    if (typeof v === 'string') out += v;
+    else {
+      chunks.push(out, v);
+      out = '';
+    }
     from = m.index + m[0].length;
   }
   out += template.slice(from);
+  chunks.push(out);
   for (const name of Object.keys(values)) {
     if (!used.has(name)) throw new InputError('report-template/report.html', `placeholder {{${name}}} is missing from the template`);
   }
-  return out;
+  return chunks;
+}
+
+/** {@link fillTemplateChunks} with text values only: the page as one string. */
+export function fillTemplate(template: string, values: Record<string, string>): string {
+  return (fillTemplateChunks(template, values) as string[]).join('');
 }
 
 /**
@@ -137,8 +156,23 @@ export function fillTemplate(template: string, values: Record<string, string>): 
  * @throws InputError when the template and the renderer disagree on placeholders
  */
 export function renderReport(model: ReportModel, assets: ReportAssets): string {
+  return fillTemplate(assets.html, pageValues(model, assets, inlinedPlotly(assets).text));
+}
+
+/**
+ * The page of {@link renderReport} as chunks for writing out, the same bytes once encoded as UTF-8: the
+ * chart library (4.6 MB, the same in every report of a process) comes as bytes encoded once per process,
+ * so a report no longer copies and encodes it.
+ */
+export function renderReportChunks(model: ReportModel, assets: ReportAssets): PageChunk[] {
   const plotly = inlinedPlotly(assets);
-  const plotlyJs = plotly.text;
+  plotly.bytes ??= new TextEncoder().encode(plotly.text);
+  return fillTemplateChunks(assets.html, pageValues(model, assets, plotly.bytes));
+}
+
+/** The template's values for one page, with the inlined chart library as given (its text or its bytes). */
+function pageValues<P extends PageChunk>(model: ReportModel, assets: ReportAssets, plotlyJs: P): Record<string, string | P> {
+  const plotly = inlinedPlotly(assets);
   const pageJs = inlineScriptSource(assets.js);
   const labelled = new Set([...model.divergences].sort((a, b) => Math.abs(b.peakErrorDeg) - Math.abs(a.peakErrorDeg)).slice(0, 12));
   const { row: _rows, ...drawnSeries } = model.series;
@@ -173,7 +207,7 @@ export function renderReport(model: ReportModel, assets: ReportAssets): string {
     d.drawn === d.samples
       ? `Every sample is drawn (${fmtCount(d.samples)}).`
       : `Drawn: ${fmtCount(d.drawn)} of ${fmtCount(d.samples)} samples (${d.method}). The samples CSV holds every sample.`;
-  return fillTemplate(assets.html, {
+  return {
     CSP: escapeHtml(reportCsp([plotly.hash, scriptHash(pageJs, assets)])),
     TITLE: escapeHtml(model.title),
     CSS: assets.css.replace(/<\/style/gi, '<\\/style'),
@@ -188,5 +222,5 @@ export function renderReport(model: ReportModel, assets: ReportAssets): string {
     DATA_JSON: jsonForScriptBlock(pageData),
     PLOTLY_JS: plotlyJs,
     REPORT_JS: pageJs,
-  });
+  };
 }

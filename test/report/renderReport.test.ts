@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { InputError } from '../../src/errors.js';
 import { escapeHtml } from '../../src/report/escapeHtml.js';
 import { loadReportAssets, packageRoot } from '../../src/report/loadReportAssets.js';
-import { fillTemplate, renderReport } from '../../src/report/renderReport.js';
+import { fillTemplate, fillTemplateChunks, renderReport, renderReportChunks } from '../../src/report/renderReport.js';
 import { buildReportModel } from '../../src/report/reportModel.js';
 import { HOSTILE, syntheticFlight } from './syntheticFlight.js';
 
@@ -159,6 +159,16 @@ describe('renderReport: content and order', () => {
     expect(renderReport(hostileModel, assets)).toBe(html);
   });
 
+  it('gives, as chunks for writing out, the very bytes of the page as UTF-8 (chart library as bytes)', () => {
+    const chunks = renderReportChunks(hostileModel, assets);
+    expect(chunks.some((c) => c instanceof Uint8Array)).toBe(true);
+    const written = Buffer.concat(chunks.map((c) => (typeof c === 'string' ? Buffer.from(c, 'utf8') : c)));
+    expect(written.equals(Buffer.from(html, 'utf8'))).toBe(true);
+    // A second page of the process reuses the encoded library (the same bytes object).
+    const again = renderReportChunks(hostileModel, assets);
+    expect(again.find((c) => c instanceof Uint8Array)).toBe(chunks.find((c) => c instanceof Uint8Array));
+  });
+
   it('keeps a 3-hour 10 Hz flight (108,000 samples) under 6 MB, chart library included', () => {
     const big = renderReport(buildReportModel(syntheticFlight({ durationS: 10_800, hz: 10 }), FIXED), assets);
     expect(Buffer.byteLength(big, 'utf8')).toBeLessThan(6_000_000);
@@ -170,6 +180,12 @@ describe('fillTemplate and loadReportAssets', () => {
     expect(() => fillTemplate('<p>{{A}}{{B}}</p>', { A: 'x' })).toThrow(InputError);
     expect(() => fillTemplate('<p>{{A}}</p>', { A: 'x', B: 'y' })).toThrow(/\{\{B\}\}/);
     expect(fillTemplate('{{A}}-{{A}}', { A: '$&{{A}}' })).toBe('$&{{A}}-$&{{A}}');
+  });
+
+  it('keeps text runs joined and byte values apart, in template order', () => {
+    const b = new Uint8Array([0x41]);
+    expect(fillTemplateChunks('<{{A}}|{{B}}|{{A}}>', { A: 'x', B: b })).toEqual(['<x|', b, '|x>']);
+    expect(fillTemplateChunks('{{B}}', { B: b })).toEqual(['', b, '']);
   });
 
   it('finds the template beside package.json and the chart library through module resolution', () => {
