@@ -2,6 +2,7 @@
 import { promises as fsp } from 'node:fs';
 import path from 'node:path';
 import { ParseError } from '../errors.js';
+import { hasSwingRecordHeader } from '../deviation/swingColumns.js';
 import { detectFormat } from '../import/detectFormat.js';
 import { readHead } from '../import/readLog.js';
 
@@ -38,9 +39,23 @@ export interface FoundInputs {
   skipped: SkippedPath[];
 }
 
+/** Why a compass-swing record found in a folder is left out. */
+export const SWING_RECORD_NOTE = 'a compass-swing record (heading_mag_deg, compass_deg), not a flight log: fit its deviation card with `compass-debrief swing`, apply it with --deviation';
+
 /** Whether a file found in a folder is a log: by its extension, else by its first bytes; the reason when not. */
 async function classify(file: string): Promise<{ log: true } | { log: false; note: string }> {
-  if (LOG_EXTENSIONS.includes(path.extname(file).toLowerCase())) return { log: true };
+  const ext = path.extname(file).toLowerCase();
+  if (ext === '.csv' || ext === '.txt') {
+    // A compass-swing record kept beside the logs (as in samples/) is not a flight that failed.
+    let text = '';
+    try {
+      text = new TextDecoder().decode(await readHead(file));
+    } catch {
+      return { log: true }; // unreadable: analysed, so that the batch reports why
+    }
+    if (hasSwingRecordHeader(text)) return { log: false, note: SWING_RECORD_NOTE };
+  }
+  if (LOG_EXTENSIONS.includes(ext)) return { log: true };
   let head: Uint8Array;
   try {
     head = await readHead(file);
@@ -60,7 +75,8 @@ async function classify(file: string): Promise<{ log: true } | { log: false; not
 /**
  * Expands the batch inputs. A file named on the command line is always a candidate (even a broken one:
  * the batch reports why it fails). In a folder, searched recursively in name order: files ending in one
- * of LOG_EXTENSIONS are candidates; other files are candidates when their content is detected as a log
+ * of LOG_EXTENSIONS are candidates, except a .csv or .txt whose header is a compass-swing record's
+ * (skipped with a note); other files are candidates when their content is detected as a log
  * (detectFormat), else skipped with a note; hidden names (leading dot) and the side files `*.tags.json`
  * and `*.plan.csv` are passed over silently; `excludeDirs` (the output folder) silently; folders holding catalogue.sqlite
  * (another batch's output) and symbolic links to folders are skipped with a note.

@@ -4,6 +4,7 @@ import { MAX_DEVIATION_DEG } from '../constants.js';
 import { OptionError, ParseError } from '../errors.js';
 import { wrap180, wrap360 } from '../geo/angles.js';
 import { correctionCard, type CardLine } from './correctionCard.js';
+import { COMPASS_COLUMN, HEADING_COLUMN } from './swingColumns.js';
 import { deviationAtDeg, fitSmithCoefficients, type SmithCoefficients } from './smithCoefficients.js';
 
 /** The sign convention printed with every deviation. */
@@ -52,8 +53,6 @@ export interface SwingReport {
   card: CardLine[];
 }
 
-const HEADING_COLUMN = 'heading_mag_deg';
-const COMPASS_COLUMN = 'compass_deg';
 const MIN_ROWS = 5;
 
 /** 1-based line of the last character of text[0, end) that is not a line break. */

@@ -95,6 +95,9 @@ describe('finding logs', () => {
     writeFileSync(path.join(logs, 'broken.gpx'), ''); // a log by its name, even though empty
     writeFileSync(path.join(logs, 'track.dat'), 'time_utc,lat_deg,lon_deg\n2026-05-04T10:00:00Z,52.6,0.4\n2026-05-04T10:00:01Z,52.61,0.41\n');
     writeFileSync(path.join(logs, 'notes.md'), 'just notes\n');
+    writeFileSync(path.join(logs, 'swing.csv'), '# swung at the compass base\nHeading_Mag_Deg, "compass_deg"\n0,358\n90,93\n');
+    // Our own samples CSV names both swing columns too, beside its positions: a flight.
+    writeFileSync(path.join(logs, 'again.samples.csv'), 'time_utc,lat_deg,lon_deg,heading_mag_deg,compass_deg\n2026-05-04T10:00:00Z,52.6,0.4,90,91\n');
     writeFileSync(path.join(logs, 'flight.csv.tags.json'), '{}');
     writeFileSync(path.join(logs, 'sub', 'flight.plan.csv'), 'target_mag_deg\n90\n');
     writeFileSync(path.join(logs, '.secret.gpx'), '<gpx/>');
@@ -106,13 +109,15 @@ describe('finding logs', () => {
     symlinkSync(path.join(logs, 'sub'), path.join(logs, 'loop'));
     const r = await findLogs(['logs', 'named.xyz'], { cwd: d, excludeDirs: [path.join('logs', 'out')] });
     expect(r.logs.map((l) => [l.path, l.explicit])).toEqual([
+      [path.join('logs', 'again.samples.csv'), false],
       [path.join('logs', 'broken.gpx'), false],
       [path.join('logs', 'sub', 'flight.csv'), false],
       [path.join('logs', 'track.dat'), false],
       ['named.xyz', true],
     ]);
     const notes = Object.fromEntries(r.skipped.map((s) => [s.path, s.note]));
-    expect(Object.keys(notes).sort()).toEqual([path.join('logs', 'loop'), path.join('logs', 'notes.md'), path.join('logs', 'old-batch')].sort());
+    expect(Object.keys(notes).sort()).toEqual([path.join('logs', 'loop'), path.join('logs', 'notes.md'), path.join('logs', 'old-batch'), path.join('logs', 'swing.csv')].sort());
+    expect(notes[path.join('logs', 'swing.csv')]).toMatch(/compass-swing record.*--deviation/);
     expect(notes[path.join('logs', 'old-batch')]).toMatch(/catalogue\.sqlite/);
     expect(notes[path.join('logs', 'loop')]).toMatch(/symbolic link/);
     expect(notes[path.join('logs', 'notes.md')]).toMatch(/not a flight log/);
