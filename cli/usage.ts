@@ -88,11 +88,11 @@ Example:
 Debriefs every flight log given or found in the folders (searched recursively: files ending .gpx .csv
 .igc .nmea .txt .fit .kml, and other files whose content is a log; compass-swing records and other
 files are left out with a note), several at a time on worker threads. DIR receives one debrief per
-flight (<name>.debrief.html, <name>.samples.csv, <name>.summary.json), index.html (an overview linking to each debrief, with each
-pilot's compass-turn grades across lessons and each aircraft's compass error across the season),
-overview.csv, and catalogue.sqlite (one row per flight, kept across runs). A flight whose log, options
-and tool version are unchanged since the last run is kept, not analysed again. A broken log is listed
-as failed and does not stop the batch.
+flight (<name>.debrief.html, <name>.samples.csv, <name>.summary.json), index.html (an overview linking
+to each debrief, with each pilot's compass-turn grades across lessons and each aircraft's compass error
+across the season), overview.csv, and catalogue.sqlite (one row per flight, kept across runs). A flight
+whose log, options and tool version are unchanged since the last run is kept, not analysed again. A
+broken log is listed as failed and does not stop the batch.
 Tags: --aircraft/--pilot, else a side file <log>.tags.json ({"aircraft": "...", "pilot": "..."}) beside
 the log, else the log's own.
 
