@@ -1,4 +1,5 @@
-// GPX 1.1 (and 1.0) track reader over the saxes streaming XML parser: trk/trkseg/trkpt to FlightLog columns.
+// GPX 1.1 (and 1.0) track reader: trk/trkseg/trkpt to FlightLog columns, over XML events (xmlEvents.ts: a fast
+// scanner of plain documents, else the saxes streaming XML parser).
 //
 // Source: GPX 1.1 Schema Documentation, topografix.com/GPX/1/1 (gpx.xsd). What this reader relies on:
 // - "all coordinates are relative to the WGS84 datum. All measurements are in metric units."
@@ -16,7 +17,6 @@
 // A broken document: XML 1.0 (W3C, 5th ed.) §1.2 says that after a fatal (well-formedness) error the
 // processor "MUST NOT continue normal processing", so reading stops at the first error and the flight is
 // analysed up to the last complete track point before it, with a warning naming the line.
-import { SaxesParser, type SaxesTagPlain } from 'saxes';
 import { ParseError } from '../errors.js';
 import type { FlightLog, LogWarning } from '../log/flightLog.js';
 import { LineTally, plural, pushTally } from '../log/logWarnings.js';
@@ -24,18 +24,11 @@ import { parseIsoDateTime } from './isoTime.js';
 import { LogBuilder } from './logBuilder.js';
 import { parseDecimal } from './parseNumber.js';
 import { toPlainText } from './plainText.js';
-
-/** Thrown from the saxes error handler to stop at the first well-formedness error. */
-class StopAtXmlError extends Error {}
+import { attributeValue, plainXmlEvents, saxesXmlEvents, type XmlHandlers, type XmlStop } from './xmlEvents.js';
 
 function localName(name: string): string {
   const colon = name.indexOf(':');
   return colon < 0 ? name : name.slice(colon + 1);
-}
-
-function stripPosition(message: string): string {
-  // saxes prefixes "line:column: " to its messages.
-  return message.replace(/^(?:[^:]*:)?\d+:\d+:\s*/, '');
 }
 
 /** Text children collected from the current track point. */
@@ -59,7 +52,17 @@ interface PointText {
  * @throws ParseError when the text is not a GPX document, or it has no timed track point.
  */
 export function parseGpx(text: string, file: string): FlightLog {
-  const parser = new SaxesParser({ xmlns: false, position: true });
+  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+  // A plain document (the usual track log) is read by the fast scanner; any other, from the start again,
+  // by saxes. Both give the same events, so the reading is the same (test/import/xmlEvents.test.ts).
+  const plain = gpxReading(file);
+  if (plainXmlEvents(body, plain.handlers)) return plain.finish(undefined);
+  const full = gpxReading(file);
+  return full.finish(saxesXmlEvents(body, full.handlers));
+}
+
+/** The state of one reading of a GPX document: the handlers of its XML events, and the FlightLog made at the end. */
+function gpxReading(file: string): { handlers: XmlHandlers; finish: (xmlError: XmlStop | undefined) => FlightLog } {
   const rows = new LogBuilder();
   const warnings: LogWarning[] = [];
   const noTime = new LineTally();
@@ -79,8 +82,6 @@ export function parseGpx(text: string, file: string): FlightLog {
   let tagStartLine = 1;
   let capture: string | undefined;
   let captured = '';
-  let xmlError: { message: string; line: number; atEnd: boolean } | undefined;
-  let atEnd = false;
   let authorName: string | undefined;
   let trackSrc: string | undefined;
   // Route (first rte) and waypoints (wpt): kept apart from the samples, in file order.
@@ -94,42 +95,39 @@ export function parseGpx(text: string, file: string): FlightLog {
   let routesSeen = 0;
   let pendingMark: { route: boolean; name: string } | undefined;
 
-  parser.on('error', (err) => {
-    if (!xmlError) xmlError = { message: stripPosition(err.message), line: parser.line, atEnd };
-    throw new StopAtXmlError();
-  });
-  parser.on('opentagstart', () => {
-    tagStartLine = parser.line;
-  });
-  parser.on('opentag', (tag: SaxesTagPlain) => {
-    const name = localName(tag.name);
+  const openStart = (line: number) => {
+    tagStartLine = line;
+  };
+  const open = (tagName: string, attrNames: readonly string[], attrValues: readonly string[]) => {
+    const attr = (key: string) => attributeValue(attrNames, attrValues, key);
+    const name = localName(tagName);
     const parent = stack.length > 0 ? stack[stack.length - 1] : '';
     if (!rootSeen) {
       rootSeen = true;
       if (name !== 'gpx') {
-        throw new ParseError(`the XML document's root element is <${tag.name}>, not <gpx>`, {
+        throw new ParseError(`the XML document's root element is <${tagName}>, not <gpx>`, {
           line: tagStartLine,
           hint: 'expected a GPX 1.1 track log',
         });
       }
-      version = String(tag.attributes.version ?? '');
-      creator = String(tag.attributes.creator ?? '');
+      version = attr('version') ?? '';
+      creator = attr('creator') ?? '';
     }
     stack.push(name);
     if (name === 'trkpt' && parent === 'trkseg') {
       pointsSeen++;
       point = {
         line: tagStartLine,
-        lat: parseDecimal(tag.attributes.lat as string | undefined),
-        lon: parseDecimal(tag.attributes.lon as string | undefined),
+        lat: parseDecimal(attr('lat')),
+        lon: parseDecimal(attr('lon')),
       };
       return;
     }
     if (name === 'rte' && parent === 'gpx') routesSeen++;
     if ((name === 'rtept' && parent === 'rte' && routesSeen === 1) || (name === 'wpt' && parent === 'gpx')) {
       routeOrWaypoints++;
-      const lat = parseDecimal(tag.attributes.lat as string | undefined);
-      const lon = parseDecimal(tag.attributes.lon as string | undefined);
+      const lat = parseDecimal(attr('lat'));
+      const lon = parseDecimal(attr('lon'));
       const isRoute = name === 'rtept';
       (isRoute ? routeLat : wptLat).push(lat);
       (isRoute ? routeLon : wptLon).push(lon);
@@ -174,14 +172,12 @@ export function parseGpx(text: string, file: string): FlightLog {
       capture = `${parent}/${name}`;
       captured = '';
     }
-  });
+  };
   const onText = (chunk: string) => {
     if (capture !== undefined) captured += chunk;
   };
-  parser.on('text', onText);
-  parser.on('cdata', onText);
-  parser.on('closetag', (tag: SaxesTagPlain) => {
-    const name = localName(tag.name);
+  const close = (tagName: string, line: number) => {
+    const name = localName(tagName);
     stack.pop();
     if (capture !== undefined) {
       if (point && capture === 'ele') point.ele = captured;
@@ -201,7 +197,7 @@ export function parseGpx(text: string, file: string): FlightLog {
       capture = undefined;
     }
     if (name === 'trkpt' && point && stack[stack.length - 1] === 'trkseg') {
-      lastCompleteLine = parser.line;
+      lastCompleteLine = line;
       if (point.time === undefined || point.time.trim() === '') noTime.add(point.line);
       else {
         const ele = parseDecimal(point.ele);
@@ -216,89 +212,83 @@ export function parseGpx(text: string, file: string): FlightLog {
     }
     if (name === 'rtept' || name === 'wpt') pendingMark = undefined;
     if (stack.length === 0) rootClosed = true;
-  });
+  };
+  return { handlers: { openStart, open, text: onText, close }, finish };
 
-  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
-  try {
-    parser.write(body);
-    atEnd = true;
-    parser.close();
-  } catch (err) {
-    if (!(err instanceof StopAtXmlError)) throw err;
-  }
-
-  const incompletePoint = point !== undefined ? 1 : 0;
-  const truncated = xmlError !== undefined && !rootClosed;
-  if (!rootSeen) {
-    throw new ParseError('no XML element found', {
-      line: xmlError?.line,
-      hint: 'expected a GPX 1.1 document starting with <gpx>',
-    });
-  }
-  if (xmlError && rows.length === 0) {
-    throw new ParseError(`the GPX file is not well-formed XML: ${xmlError.message}`, {
-      line: xmlError.line,
-      hint: 'no complete track point comes before this place',
-    });
-  }
-
-  if (xmlError && truncated) {
-    const cut = point ? `; the track point begun at line ${point.line} is incomplete and was left out` : '';
-    const what = xmlError.atEnd
-      ? `The file ends before the GPX document is complete (line ${xmlError.line}: ${xmlError.message}): it was probably cut off while being written`
-      : `The XML is broken at line ${xmlError.line} (${xmlError.message}); reading stopped there`;
-    warnings.push({
-      code: xmlError.atEnd ? 'file-truncated' : 'xml-broken',
-      message: `${what}${cut}. The flight is analysed up to the last complete track point (ending on line ${lastCompleteLine}).`,
-      lines: [xmlError.line],
-    });
-  } else if (xmlError) {
-    warnings.push({
-      code: 'trailing-data',
-      message: `Unreadable data after the end of the GPX document at line ${xmlError.line} (${xmlError.message}) was ignored.`,
-      lines: [xmlError.line],
-    });
-  }
-  pushTally(warnings, 'no-time', `${plural(noTime.count, 'track point')} without a <time> left out`, noTime);
-
-  if (rows.length === 0) {
-    if (pointsSeen > 0) {
-      throw new ParseError(`none of the ${plural(pointsSeen, 'track point')} has a <time>`, {
-        hint: 'a track drawn in a planning tool has no times; use the track the receiver recorded in flight',
+  function finish(xmlError: XmlStop | undefined): FlightLog {
+    const incompletePoint = point !== undefined ? 1 : 0;
+    const truncated = xmlError !== undefined && !rootClosed;
+    if (!rootSeen) {
+      throw new ParseError('no XML element found', {
+        line: xmlError?.line,
+        hint: 'expected a GPX 1.1 document starting with <gpx>',
       });
     }
-    throw new ParseError('the GPX file has no track points (<trk>/<trkseg>/<trkpt>)', {
-      hint:
-        routeOrWaypoints > 0
-          ? 'it holds only a route or waypoints, which carry no flight times; use the recorded track'
-          : 'use the track log the receiver recorded in flight',
-    });
-  }
-  if (version !== '' && version !== '1.1' && version !== '1.0') {
-    warnings.push({ code: 'gpx-version', message: `GPX version "${version}" is not 1.1 or 1.0; read as GPX 1.1.` });
-  }
+    if (xmlError && rows.length === 0) {
+      throw new ParseError(`the GPX file is not well-formed XML: ${xmlError.message}`, {
+        line: xmlError.line,
+        hint: 'no complete track point comes before this place',
+      });
+    }
 
-  const log = rows.build({
-    format: 'gpx',
-    file,
-    warnings,
-    meta: {
-      name: trackName ?? metaName,
-      comment: trackDesc ?? metaDesc,
-      pilot: authorName,
-      device: trackSrc ?? (creator !== '' ? toPlainText(creator) : undefined),
-    },
-    altDatum: 'msl',
-    reader: {
-      recordsRead: pointsSeen,
-      recordsDropped: noTime.count + incompletePoint,
-      truncated,
-    },
-  });
-  if (routeLat.length > 0) {
-    log.route = { name: routeName, lat: Float64Array.from(routeLat), lon: Float64Array.from(routeLon), names: routeNames };
-  } else if (wptLat.length > 0) {
-    log.route = { lat: Float64Array.from(wptLat), lon: Float64Array.from(wptLon), names: wptNames };
+    if (xmlError && truncated) {
+      const cut = point ? `; the track point begun at line ${point.line} is incomplete and was left out` : '';
+      const what = xmlError.atEnd
+        ? `The file ends before the GPX document is complete (line ${xmlError.line}: ${xmlError.message}): it was probably cut off while being written`
+        : `The XML is broken at line ${xmlError.line} (${xmlError.message}); reading stopped there`;
+      warnings.push({
+        code: xmlError.atEnd ? 'file-truncated' : 'xml-broken',
+        message: `${what}${cut}. The flight is analysed up to the last complete track point (ending on line ${lastCompleteLine}).`,
+        lines: [xmlError.line],
+      });
+    } else if (xmlError) {
+      warnings.push({
+        code: 'trailing-data',
+        message: `Unreadable data after the end of the GPX document at line ${xmlError.line} (${xmlError.message}) was ignored.`,
+        lines: [xmlError.line],
+      });
+    }
+    pushTally(warnings, 'no-time', `${plural(noTime.count, 'track point')} without a <time> left out`, noTime);
+
+    if (rows.length === 0) {
+      if (pointsSeen > 0) {
+        throw new ParseError(`none of the ${plural(pointsSeen, 'track point')} has a <time>`, {
+          hint: 'a track drawn in a planning tool has no times; use the track the receiver recorded in flight',
+        });
+      }
+      throw new ParseError('the GPX file has no track points (<trk>/<trkseg>/<trkpt>)', {
+        hint:
+          routeOrWaypoints > 0
+            ? 'it holds only a route or waypoints, which carry no flight times; use the recorded track'
+            : 'use the track log the receiver recorded in flight',
+      });
+    }
+    if (version !== '' && version !== '1.1' && version !== '1.0') {
+      warnings.push({ code: 'gpx-version', message: `GPX version "${version}" is not 1.1 or 1.0; read as GPX 1.1.` });
+    }
+
+    const log = rows.build({
+      format: 'gpx',
+      file,
+      warnings,
+      meta: {
+        name: trackName ?? metaName,
+        comment: trackDesc ?? metaDesc,
+        pilot: authorName,
+        device: trackSrc ?? (creator !== '' ? toPlainText(creator) : undefined),
+      },
+      altDatum: 'msl',
+      reader: {
+        recordsRead: pointsSeen,
+        recordsDropped: noTime.count + incompletePoint,
+        truncated,
+      },
+    });
+    if (routeLat.length > 0) {
+      log.route = { name: routeName, lat: Float64Array.from(routeLat), lon: Float64Array.from(routeLon), names: routeNames };
+    } else if (wptLat.length > 0) {
+      log.route = { lat: Float64Array.from(wptLat), lon: Float64Array.from(wptLon), names: wptNames };
+    }
+    return log;
   }
-  return log;
 }
