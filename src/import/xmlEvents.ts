@@ -10,8 +10,9 @@
 //   [A-Za-z_:][A-Za-z0-9._:-]* (§2.3), attributes separated by white space, each name once, values in
 //   quotes without '<', '&', tab, CR or LF (so attribute-value normalisation (§3.3.3) has nothing to do);
 // - character data without '&', '<' or '>' (so no reference and no "]]>", §2.4), of Chars (§2.2) below
-//   U+D800 or from U+E000 to U+FFFD; line ends CR LF or LF (§2.11: CR LF is passed on as LF).
-// Anything else (comments, processing instructions, CDATA, DOCTYPE, references, lone CR, non-ASCII names, a
+//   U+D800 or from U+E000 to U+FFFD; line ends CR LF or LF (§2.11: CR LF is passed on as LF);
+// - comments (§2.5) of the same characters, anywhere outside a tag (they give no event).
+// Anything else (processing instructions, CDATA, DOCTYPE, references, lone CR, non-ASCII names, a
 // second root, an unclosed element, any error) makes the scanner stop and answer false.
 import { SaxesParser, type SaxesTagPlain } from 'saxes';
 
@@ -161,6 +162,18 @@ export function plainXmlEvents(text: string, h: XmlHandlers): boolean {
       h.close(name, line);
       if (stack.length === 0) rootClosed = true;
       i = k + 1;
+      continue;
+    }
+    if (c1 === BANG && text.startsWith('<!--', i)) {
+      // Comment (§2.5): '<!--' ((Char - '-') | ('-' (Char - '-')))* '-->'; no event, only its lines.
+      const end = text.indexOf('--', i + 4);
+      if (end < 0 || text.charCodeAt(end + 2) !== GT) return false;
+      for (let k = i + 4; k < end; k++) {
+        const d = text.charCodeAt(k);
+        if (!isPlainChar(d)) return false;
+        if (d === LF) line++;
+      }
+      i = end + 3;
       continue;
     }
     if (c1 === BANG || c1 === QMARK || rootClosed) return false;
