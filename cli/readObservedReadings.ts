@@ -1,9 +1,11 @@
 // --observed FILE: compass readings noted in flight (by the pilot, or read off cockpit video), for the fit
 // of the compass profile. Columns: time_utc (ISO 8601 with Z) and compass_deg. Lines starting with # are comments.
 import { readSideFileText } from '../src/import/readSideFile.js';
-import Papa from 'papaparse';
+import { requireCjs } from '../src/util/requireCjs.js';
 import { InputError } from '../src/errors.js';
 import type { CompassObservations } from '../src/compass/calibrateProfile.js';
+
+const Papa = requireCjs('papaparse') as typeof import('papaparse');
 
 const HINT = 'an observed-readings file has columns time_utc (e.g. 2026-05-04T10:12:30Z) and compass_deg (0 to 360)';
 

@@ -1,10 +1,12 @@
 // --wind FILE: a small wind table, by altitude or by time. Columns: alt_ft (or alt_m) or time_utc, and
 // wind as DDD/SS (from, true, knots) or as from_deg + speed_kt. Lines starting with # are comments.
 import { readSideFileText } from '../src/import/readSideFile.js';
-import Papa from 'papaparse';
+import { requireCjs } from '../src/util/requireCjs.js';
 import { FT_M, KT_MS } from '../src/constants.js';
 import { InputError } from '../src/errors.js';
 import type { WindOption, WindTableRow } from '../src/state/windOption.js';
+
+const Papa = requireCjs('papaparse') as typeof import('papaparse');
 
 /** Reads a wind table file into a WindOption of kind 'table'. Every problem names the file and line. */
 export async function readWindTable(file: string): Promise<WindOption> {

@@ -1,9 +1,12 @@
 // The catalogue of analysed flights: one SQLite row per flight (keyed by the log's content hash), kept
 // beside the batch reports as catalogue.sqlite. Node-only (better-sqlite3); only the batch's main thread writes.
-import Database from 'better-sqlite3';
+import { requireCjs } from '../util/requireCjs.js';
+import type SqliteDatabase from 'better-sqlite3';
 import { InputError } from '../errors.js';
 import type { SmithCoefficients } from '../deviation/smithCoefficients.js';
 import type { FlightFacts } from './flightFacts.js';
+
+const Database = requireCjs('better-sqlite3') as typeof SqliteDatabase;
 
 /** Layout version of the catalogue, kept in PRAGMA user_version; bump when a column changes meaning. */
 export const CATALOGUE_SCHEMA_VERSION = 1;
@@ -176,7 +179,7 @@ function fromRecord(o: Record<string, unknown>): CatalogueRow {
  * @throws InputError naming the file when it is not an SQLite database or was made by a newer layout
  */
 export function openCatalogue(file: string): FlightCatalogue {
-  let db: Database.Database;
+  let db: SqliteDatabase.Database;
   try {
     db = new Database(file, { timeout: 10_000 });
     db.pragma('journal_mode = WAL');

@@ -1,11 +1,13 @@
 // A compass-swing record: the CSV of magnetic heading vs compass reading, and the report fitted to it.
-import Papa from 'papaparse';
+import { requireCjs } from '../util/requireCjs.js';
 import { MAX_DEVIATION_DEG } from '../constants.js';
 import { OptionError, ParseError } from '../errors.js';
 import { wrap180, wrap360 } from '../geo/angles.js';
 import { correctionCard, type CardLine } from './correctionCard.js';
 import { COMPASS_COLUMN, HEADING_COLUMN } from './swingColumns.js';
 import { deviationAtDeg, fitSmithCoefficients, type SmithCoefficients } from './smithCoefficients.js';
+
+const Papa = requireCjs('papaparse') as typeof import('papaparse');
 
 /** The sign convention printed with every deviation. */
 export const DEVIATION_SIGN_CONVENTION = 'deviation = magnetic − compass, easterly +; compass + deviation = magnetic';

@@ -1,5 +1,5 @@
 // Delimited text (CSV and its semicolon/tab/pipe cousins) to a FlightLog, via papaparse, row by row.
-import Papa from 'papaparse';
+import { requireCjs } from '../util/requireCjs.js';
 import { OptionError, ParseError } from '../errors.js';
 import type { FlightLog, LogWarning, OptionalColumn } from '../log/flightLog.js';
 import { LineTally, plural, pushTally } from '../log/logWarnings.js';
@@ -9,6 +9,8 @@ import { COMMA, POINT, parseIsoBytes, parsePlainDecimalBytes, parseTimeOfDayByte
 import { isoHasZone, parseIsoDate, parseIsoDateTime, parseTimeOfDay } from './isoTime.js';
 import { LogBuilder } from './logBuilder.js';
 import { parseDecimal, parseDecimalComma } from './parseNumber.js';
+
+const Papa = requireCjs('papaparse') as typeof import('papaparse');
 
 /** Options of the CSV reader. All optional; the defaults read a plain comma-separated log with a header. */
 export interface CsvOptions {

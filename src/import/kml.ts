@@ -7,7 +7,8 @@
 // (and relativeToGround) do not give heights above sea level [wording from memory]. A <LineString> has
 // coordinates but no times and cannot be used. Broken XML: reading stops at the first well-formedness error
 // (XML 1.0 §1.2) and keeps the complete points before it.
-import { SaxesParser, type SaxesTagPlain } from 'saxes';
+import type { SaxesTagPlain } from 'saxes';
+import { requireCjs } from '../util/requireCjs.js';
 import { ParseError } from '../errors.js';
 import type { FlightLog, LogWarning } from '../log/flightLog.js';
 import { LineTally, plural, pushTally } from '../log/logWarnings.js';
@@ -15,6 +16,8 @@ import { parseIsoDateTime } from './isoTime.js';
 import { LogBuilder } from './logBuilder.js';
 import { parseDecimal } from './parseNumber.js';
 import { toPlainText } from './plainText.js';
+
+const { SaxesParser } = requireCjs('saxes') as typeof import('saxes');
 
 class StopAtXmlError extends Error {}
 

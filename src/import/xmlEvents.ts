@@ -14,7 +14,10 @@
 // - comments (§2.5) of the same characters, anywhere outside a tag (they give no event).
 // Anything else (processing instructions, CDATA, DOCTYPE, references, lone CR, non-ASCII names, a
 // second root, an unclosed element, any error) makes the scanner stop and answer false.
-import { SaxesParser, type SaxesTagPlain } from 'saxes';
+import type { SaxesTagPlain } from 'saxes';
+import { requireCjs } from '../util/requireCjs.js';
+
+const { SaxesParser } = requireCjs('saxes') as typeof import('saxes');
 
 /** What a reader does with the events. Lines are 1-based, counted as saxes counts them. */
 export interface XmlHandlers {

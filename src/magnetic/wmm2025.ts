@@ -1,8 +1,11 @@
 // The World Magnetic Model 2025 at one point, through the `geomagnetism` package's model code and its
 // WMM2025 coefficient file, with our own choice of model, our own validity check and an exact decimal year.
-import GeomagnetismModel from 'geomagnetism/lib/model.js';
+import { requireCjs } from '../util/requireCjs.js';
 import wmm2025Coefficients from 'geomagnetism/data/wmm-2025.json' with { type: 'json' };
 import { OptionError } from '../errors.js';
+
+const GeomagnetismModel = requireCjs('geomagnetism/lib/model.js') as typeof import('geomagnetism/lib/model.js').default;
+type GeomagnetismModel = import('geomagnetism/lib/model.js').default;
 
 /** Model name as printed in reports. */
 export const WMM2025_NAME = 'WMM2025';
