@@ -148,8 +148,73 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
   const posRejected = new Uint8Array(n);
   const posInflated = new Uint8Array(n);
   const velRejected = new Uint8Array(n);
+  filterForward(t, { Z, ZR, VZ, VR, anyVel }, { m, nG, gOf, order, gStart, qg }, { gate, maxRun }, X, P, { posRejected, posInflated, velRejected });
+
+  const out: RtsAxisResult[] = new Array(m);
+  for (let g = 0; g < nG; g++) {
+    const mem = order.subarray(gStart[g], gStart[g + 1]);
+    const res = smoothBackward(t, P, g6, 6 * g, X, m3, mem, qg[g]);
+    for (let u = 0; u < mem.length; u++) out[mem[u]] = res[u];
+  }
+  const posSpike = new Uint8Array(n);
+  for (let i = 0; i < n; i++) {
+    if (posRejected[i] === 0) continue;
+    let d2 = 0;
+    let dof = 0;
+    for (let j = 0; j < m; j++) {
+      const z = pos[j][i];
+      if (!Number.isFinite(z)) continue;
+      const r = z - out[j].p[i];
+      d2 += (r * r) / (posVar[j][i] + out[j].pVar[i]);
+      dof++;
+    }
+    if (dof > 0 && d2 > CHI2_9999[dof]) posSpike[i] = 1;
+  }
+  return { axes: out, posRejected, posSpike, posInflated, velRejected };
+}
+
+/** The measurement columns of the forward pass, flat (sample i, axis j at i·m + j). */
+interface FlatMeasurements {
+  Z: Float64Array;
+  ZR: Float64Array;
+  VZ: Float64Array;
+  VR: Float64Array;
+  anyVel: boolean;
+}
+
+/** The axes and their covariance groups: m axes, nG groups, group of each axis, axes by group, jerk PSD per group. */
+interface AxisGroups {
+  m: number;
+  nG: number;
+  gOf: Int32Array;
+  order: Int32Array;
+  gStart: Int32Array;
+  qg: Float64Array;
+}
+
+/** Per-sample flags written by the forward pass. */
+interface GateFlags {
+  posRejected: Uint8Array;
+  posInflated: Uint8Array;
+  velRejected: Uint8Array;
+}
+
+// The forward pass is a function of its own so that the engine's on-stack replacement of its loop compiles
+// the loop alone: compiled inside rtsSmoothWhiteJerk, the code after the loop had no type feedback yet, was
+// thrown away on the first run through it and compiled again on the next flight (9 times in a batch of 24).
+/** Forward pass of {@link rtsSmoothWhiteJerk}: predicts and updates X and P row by row, in place, and sets the gate flags. */
+function filterForward(
+  t: Float64Array, meas: FlatMeasurements, groups: AxisGroups, gating: { gate: boolean; maxRun: number }, X: Float64Array, P: Float64Array, flags: GateFlags,
+): void {
+  const { Z, ZR, VZ, VR, anyVel } = meas;
+  const { m, nG, gOf, order, gStart, qg } = groups;
+  const { gate, maxRun } = gating;
+  const { posRejected, posInflated, velRejected } = flags;
+  const n = t.length;
+  const m3 = 3 * m, g6 = 6 * nG;
   let run = 0;
   const invS = new Float64Array(nG); // 1/S of the current fix, per group
+
 
   for (let i = 0; i < n; i++) {
     const zi = m * i, xi = m3 * i, pi = g6 * i;
@@ -254,28 +319,6 @@ export function rtsSmoothWhiteJerk(t: Float64Array, axes: WhiteJerkAxis[], opts:
       }
     }
   }
-
-  const out: RtsAxisResult[] = new Array(m);
-  for (let g = 0; g < nG; g++) {
-    const mem = order.subarray(gStart[g], gStart[g + 1]);
-    const res = smoothBackward(t, P, g6, 6 * g, X, m3, mem, qg[g]);
-    for (let u = 0; u < mem.length; u++) out[mem[u]] = res[u];
-  }
-  const posSpike = new Uint8Array(n);
-  for (let i = 0; i < n; i++) {
-    if (posRejected[i] === 0) continue;
-    let d2 = 0;
-    let dof = 0;
-    for (let j = 0; j < m; j++) {
-      const z = pos[j][i];
-      if (!Number.isFinite(z)) continue;
-      const r = z - out[j].p[i];
-      d2 += (r * r) / (posVar[j][i] + out[j].pVar[i]);
-      dof++;
-    }
-    if (dof > 0 && d2 > CHI2_9999[dof]) posSpike[i] = 1;
-  }
-  return { axes: out, posRejected, posSpike, posInflated, velRejected };
 }
 
 /** Same jerk PSD, same variance columns (by value) and the same missing positions and velocities. */
