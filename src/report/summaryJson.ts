@@ -47,6 +47,27 @@ function representativeWind(winds: FlightAnalysis['state']['winds']): { fromDeg:
   return { fromDeg: wrap360((Math.atan2(we, wn) * 180) / Math.PI), speedMs: Math.hypot(wn, we) / sw, source: sources.size === 1 ? winds[0].source : 'mixed' };
 }
 
+/** The largest value of a flag column (0 for an empty one). */
+function largestFlag(col: Uint8Array): number {
+  let m = 0;
+  for (let i = 0; i < col.length; i++) if (col[i] > m) m = col[i];
+  return m;
+}
+
+/** A copy of `col` with NaN where `mask` is set. */
+function blankWhere(col: Float64Array, mask: Uint8Array): Float64Array {
+  const out = new Float64Array(col.length);
+  for (let i = 0; i < out.length; i++) out[i] = mask[i] ? NaN : col[i];
+  return out;
+}
+
+/** How many entries of `mask` are set. */
+function countSet(mask: Uint8Array): number {
+  let k = 0;
+  for (let i = 0; i < mask.length; i++) if (mask[i]) k++;
+  return k;
+}
+
 /** Index of the largest |value| (NaN skipped), or −1 when there is none. */
 function argMaxAbs(col: Float64Array): number {
   let best = -1;
@@ -101,14 +122,12 @@ export function buildSummary(a: FlightAnalysis): Record<string, unknown> {
   const primary = representativeWind(wind);
   const variation = finiteRange(f.variationDeg);
   const dip = finiteRange(f.dipDeg);
-  let worstZone = 0;
-  for (let i = 0; i < f.n; i++) if (f.zone[i] > worstZone) worstZone = f.zone[i];
+  // The per-sample loops are in helpers: this function runs once per flight and, without loops of its
+  // own, is not compiled by the JIT at all (it was, at some 100 ms of compiler time per batch worker).
+  const worstZone = largestFlag(f.zone);
   const iMax = argMaxAbs(c.errorDeg);
-  const reliableError = new Float64Array(c.errorDeg.length);
-  for (let i = 0; i < reliableError.length; i++) reliableError[i] = c.unreliable[i] ? NaN : c.errorDeg[i];
-  const iRel = argMaxAbs(reliableError);
-  let unreliableSamples = 0;
-  for (let i = 0; i < c.unreliable.length; i++) if (c.unreliable[i]) unreliableSamples++;
+  const iRel = argMaxAbs(blankWhere(c.errorDeg, c.unreliable));
+  const unreliableSamples = countSet(c.unreliable);
   return {
     schema_version: SUMMARY_SCHEMA_VERSION,
     source: { file: a.log.source.file, format: a.log.source.format, meta: { ...a.log.source.meta } },
