@@ -21,7 +21,7 @@ const { SaxesParser } = requireCjs('saxes') as typeof import('saxes');
 
 /** What a reader does with the events. Lines are 1-based, counted as saxes counts them. */
 export interface XmlHandlers {
-  /** A start tag's name has been read; `line` is that of the character just after the name. */
+  /** A start tag's name has been read; `line` is that of its '<' (a name never spans lines). */
   openStart(line: number): void;
   /** A start tag (or empty-element tag) is complete: its attributes' names and values, in document order. */
   open(name: string, attrNames: readonly string[], attrValues: readonly string[]): void;
@@ -61,7 +61,9 @@ export function saxesXmlEvents(text: string, h: XmlHandlers): XmlStop | undefine
     throw new StopAtXmlError();
   });
   let depth = 0; // saxes also reports the white space around the root as text: that is not passed on
-  parser.on('opentagstart', () => h.openStart(parser.line));
+  // saxes reports the tag once it has read the character after the name, counted already: where that was a
+  // line end, the column is back at 0 and the tag began on the line before.
+  parser.on('opentagstart', () => h.openStart(parser.column === 0 ? parser.line - 1 : parser.line));
   parser.on('opentag', (tag: SaxesTagPlain) => {
     depth++;
     const attributes = tag.attributes as Record<string, string>;
@@ -186,8 +188,7 @@ export function plainXmlEvents(text: string, h: XmlHandlers): boolean {
     while (k < n && isNameChar(text.charCodeAt(k))) k++;
     const name = text.slice(i + 1, k);
     if (k >= n) return false;
-    const after = text.charCodeAt(k); // saxes has counted it when it reports the name: a line end counts
-    h.openStart(after === LF || after === CR ? line + 1 : line);
+    h.openStart(line);
     const names: string[] = [];
     const values: string[] = [];
     let empty = false;

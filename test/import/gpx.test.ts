@@ -48,6 +48,13 @@ describe('parseGpx: GPX 1.1 tracks (GPX 1.1 Schema Documentation, topografix.com
     }
   });
 
+  it("records the line of a trkpt's '<' when its attributes stand on the next lines, plain XML or not", () => {
+    const body = '<trk><trkseg>\n<trkpt\n  lat="52.5"\n  lon="-0.25"><time>2026-05-04T10:00:00Z</time></trkpt>\n<trkpt\r\n lat="52.6" lon="-0.2"><time>2026-05-04T10:00:01Z</time></trkpt>\n</trkseg></trk>';
+    // Lines: 1 declaration, 2 <gpx>, 3 <trk><trkseg>, 4 the first <trkpt, 7 the second.
+    expect(Array.from(parseGpx(gpx(body), 'a.gpx').line)).toEqual([4, 7]);
+    expect(Array.from(parseGpx(gpx(body.replace('<trk>', '<trk><![CDATA[]]>')), 'a.gpx').line)).toEqual([4, 7]); // through saxes
+  });
+
   it('drops a point without <time>, counts it and names its line', () => {
     const w = log.source.warnings.find((x) => x.code === 'no-time');
     expect(w?.count).toBe(1);
