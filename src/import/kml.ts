@@ -1,4 +1,5 @@
-// KML 2.2 timed tracks (gx:Track, also inside gx:MultiTrack) to FlightLog columns, over saxes.
+// KML 2.2 timed tracks (gx:Track, also inside gx:MultiTrack) to FlightLog columns, over XML events (xmlEvents.ts:
+// a fast scanner of plain documents, else saxes).
 //
 // Source: OGC KML 2.2 (OGC 07-147r2) and Google's KML extension namespace gx (kml/ext/2.2) reference:
 // a <gx:Track> holds <when> elements (xsd:dateTime) and, in the same order and number, <gx:coord>
@@ -7,8 +8,6 @@
 // (and relativeToGround) do not give heights above sea level [wording from memory]. A <LineString> has
 // coordinates but no times and cannot be used. Broken XML: reading stops at the first well-formedness error
 // (XML 1.0 §1.2) and keeps the complete points before it.
-import type { SaxesTagPlain } from 'saxes';
-import { requireCjs } from '../util/requireCjs.js';
 import { ParseError } from '../errors.js';
 import type { FlightLog, LogWarning } from '../log/flightLog.js';
 import { LineTally, plural, pushTally } from '../log/logWarnings.js';
@@ -16,10 +15,7 @@ import { parseIsoDateTime } from './isoTime.js';
 import { LogBuilder } from './logBuilder.js';
 import { parseDecimal } from './parseNumber.js';
 import { toPlainText } from './plainText.js';
-
-const { SaxesParser } = requireCjs('saxes') as typeof import('saxes');
-
-class StopAtXmlError extends Error {}
+import { plainXmlEvents, saxesXmlEvents, type XmlHandlers, type XmlStop } from './xmlEvents.js';
 
 function localName(name: string): string {
   const colon = name.indexOf(':');
@@ -40,7 +36,16 @@ interface TrackInProgress {
  * @throws ParseError when the document has no gx:Track (an untimed LineString gets its own hint).
  */
 export function parseKml(text: string, file: string): FlightLog {
-  const parser = new SaxesParser({ xmlns: false, position: true });
+  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+  // As for GPX: a plain document by the fast scanner, any other from the start again by saxes (same events).
+  const plain = kmlReading(file);
+  if (plainXmlEvents(body, plain.handlers)) return plain.finish(undefined);
+  const full = kmlReading(file);
+  return full.finish(saxesXmlEvents(body, full.handlers));
+}
+
+/** The state of one reading of a KML document: the handlers of its XML events, and the FlightLog made at the end. */
+function kmlReading(file: string): { handlers: XmlHandlers; finish: (xmlError: XmlStop | undefined) => FlightLog } {
   const rows = new LogBuilder();
   const warnings: LogWarning[] = [];
   const mismatch = new LineTally();
@@ -59,8 +64,6 @@ export function parseKml(text: string, file: string): FlightLog {
   let tagLine = 1;
   let trackLine = 0;
   let lastComplete = 0;
-  let xmlError: { message: string; line: number; atEnd: boolean } | undefined;
-  let atEnd = false;
   let pointsSeen = 0;
 
   const flushTrack = (complete: boolean) => {
@@ -77,18 +80,14 @@ export function parseKml(text: string, file: string): FlightLog {
     track = undefined;
   };
 
-  parser.on('error', (err) => {
-    if (!xmlError) xmlError = { message: err.message.replace(/^(?:[^:]*:)?\d+:\d+:\s*/, ''), line: parser.line, atEnd };
-    throw new StopAtXmlError();
-  });
-  parser.on('opentagstart', () => {
-    tagLine = parser.line;
-  });
-  parser.on('opentag', (tag: SaxesTagPlain) => {
-    const n = localName(tag.name);
+  const openStart = (line: number) => {
+    tagLine = line;
+  };
+  const open = (tagName: string) => {
+    const n = localName(tagName);
     if (!rootSeen) {
       rootSeen = true;
-      if (n !== 'kml') throw new ParseError(`the XML document's root element is <${tag.name}>, not <kml>`, { line: tagLine });
+      if (n !== 'kml') throw new ParseError(`the XML document's root element is <${tagName}>, not <kml>`, { line: tagLine });
     }
     const parent = stack.length > 0 ? stack[stack.length - 1] : '';
     stack.push(n);
@@ -101,14 +100,12 @@ export function parseKml(text: string, file: string): FlightLog {
       capture = n;
       captured = '';
     }
-  });
+  };
   const onText = (chunk: string) => {
     if (capture !== undefined) captured += chunk;
   };
-  parser.on('text', onText);
-  parser.on('cdata', onText);
-  parser.on('closetag', (tag: SaxesTagPlain) => {
-    const n = localName(tag.name);
+  const close = (tagName: string, line: number) => {
+    const n = localName(tagName);
     stack.pop();
     if (capture !== undefined && capture === n) {
       if (n === 'when' && track) track.when.push(parseIsoDateTime(captured.trim(), 0));
@@ -119,7 +116,7 @@ export function parseKml(text: string, file: string): FlightLog {
         const alt = parts.length > 2 ? parseDecimal(parts[2]) : NaN;
         if (!Number.isFinite(lon) || !Number.isFinite(lat)) badCoord.add(tagLine);
         track.coords.push([lon, lat, alt, tagLine]);
-        lastComplete = parser.line;
+        lastComplete = line;
       } else if (n === 'altitudeMode' && track) track.altitudeMode = captured.trim();
       else if (n === 'name' && name === undefined) name = toPlainText(captured);
       else if (n === 'description' && desc === undefined) desc = toPlainText(captured);
@@ -127,49 +124,44 @@ export function parseKml(text: string, file: string): FlightLog {
     }
     if (n === 'Track') flushTrack(true);
     if (stack.length === 0) rootClosed = true;
-  });
+  };
+  return { handlers: { openStart, open, text: onText, close }, finish };
 
-  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
-  try {
-    parser.write(body);
-    atEnd = true;
-    parser.close();
-  } catch (err) {
-    if (!(err instanceof StopAtXmlError)) throw err;
-  }
-  const truncated = xmlError !== undefined && !rootClosed;
-  if (truncated) flushTrack(false);
-  if (!rootSeen) throw new ParseError('no XML element found', { hint: 'expected a KML 2.2 document starting with <kml>' });
-  if (xmlError && rows.length === 0) {
-    throw new ParseError(`the KML file is not well-formed XML: ${xmlError.message}`, { line: xmlError.line });
-  }
-  if (rows.length === 0) {
-    if (tracks > 0) throw new ParseError(`the KML file's ${plural(tracks, 'gx:Track')} hold no timed points`, { hint: 'each <when> needs a matching <gx:coord>' });
-    throw new ParseError(lineStrings > 0 ? 'the KML file holds only an untimed path (LineString), no times' : 'the KML file holds no timed track (gx:Track)', {
-      hint: 'a flight log needs a time for each position: export the flight as a KML gx:Track, GPX track, IGC or CSV with times',
+  function finish(xmlError: XmlStop | undefined): FlightLog {
+    const truncated = xmlError !== undefined && !rootClosed;
+    if (truncated) flushTrack(false);
+    if (!rootSeen) throw new ParseError('no XML element found', { hint: 'expected a KML 2.2 document starting with <kml>' });
+    if (xmlError && rows.length === 0) {
+      throw new ParseError(`the KML file is not well-formed XML: ${xmlError.message}`, { line: xmlError.line });
+    }
+    if (rows.length === 0) {
+      if (tracks > 0) throw new ParseError(`the KML file's ${plural(tracks, 'gx:Track')} hold no timed points`, { hint: 'each <when> needs a matching <gx:coord>' });
+      throw new ParseError(lineStrings > 0 ? 'the KML file holds only an untimed path (LineString), no times' : 'the KML file holds no timed track (gx:Track)', {
+        hint: 'a flight log needs a time for each position: export the flight as a KML gx:Track, GPX track, IGC or CSV with times',
+      });
+    }
+    if (xmlError && truncated) {
+      warnings.push({
+        code: xmlError.atEnd ? 'file-truncated' : 'xml-broken',
+        message: `${xmlError.atEnd ? `The file ends before the KML document is complete (line ${xmlError.line}: ${xmlError.message}): it was probably cut off while being written` : `The XML is broken at line ${xmlError.line} (${xmlError.message}); reading stopped there`}. The flight is analysed up to the last complete point (ending on line ${lastComplete}).`,
+        lines: [xmlError.line],
+      });
+    }
+    pushTally(warnings, 'kml-count-mismatch', 'gx:Track with different numbers of <when> and <gx:coord>; only the pairs were used', mismatch);
+    pushTally(warnings, 'kml-bad-coord', `${plural(badCoord.count, 'gx:coord')} that could not be read`, badCoord);
+    if (nonAbsolute > 0) {
+      warnings.push({
+        code: 'kml-altitude-mode',
+        message: 'The track is not in altitudeMode absolute, so its heights are not heights above sea level and are not used.',
+      });
+    }
+    return rows.build({
+      format: 'kml',
+      file,
+      warnings,
+      meta: { name, comment: desc },
+      altDatum: nonAbsolute > 0 ? 'unknown' : 'msl',
+      reader: { recordsRead: pointsSeen, recordsDropped: pointsSeen - rows.length, truncated },
     });
   }
-  if (xmlError && truncated) {
-    warnings.push({
-      code: xmlError.atEnd ? 'file-truncated' : 'xml-broken',
-      message: `${xmlError.atEnd ? `The file ends before the KML document is complete (line ${xmlError.line}: ${xmlError.message}): it was probably cut off while being written` : `The XML is broken at line ${xmlError.line} (${xmlError.message}); reading stopped there`}. The flight is analysed up to the last complete point (ending on line ${lastComplete}).`,
-      lines: [xmlError.line],
-    });
-  }
-  pushTally(warnings, 'kml-count-mismatch', 'gx:Track with different numbers of <when> and <gx:coord>; only the pairs were used', mismatch);
-  pushTally(warnings, 'kml-bad-coord', `${plural(badCoord.count, 'gx:coord')} that could not be read`, badCoord);
-  if (nonAbsolute > 0) {
-    warnings.push({
-      code: 'kml-altitude-mode',
-      message: 'The track is not in altitudeMode absolute, so its heights are not heights above sea level and are not used.',
-    });
-  }
-  return rows.build({
-    format: 'kml',
-    file,
-    warnings,
-    meta: { name, comment: desc },
-    altDatum: nonAbsolute > 0 ? 'unknown' : 'msl',
-    reader: { recordsRead: pointsSeen, recordsDropped: pointsSeen - rows.length, truncated },
-  });
 }

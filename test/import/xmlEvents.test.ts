@@ -110,11 +110,11 @@ describe('plainXmlEvents: the same events as saxes wherever it reads a document'
     expect(plainCount).toBeGreaterThan(350); // 454 of the 3000 with this seed
   });
 
-  it('reads every GPX log of the fixtures and samples that saxes finds plain, with the same events and the same FlightLog', () => {
+  it('reads every GPX and KML log of the fixtures and samples that it finds plain, with the same events and the same FlightLog', () => {
     const dirs = [new URL('../fixtures/import/', import.meta.url), new URL('../../samples/', import.meta.url)];
     let read = 0;
     for (const dir of dirs) {
-      for (const f of readdirSync(dir).filter((x) => x.endsWith('.gpx'))) {
+      for (const f of readdirSync(dir).filter((x) => x.endsWith('.gpx') || x.endsWith('.kml'))) {
         const text = readFileSync(new URL(f, dir), 'utf8');
         const r = bothWays(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
         if (!r.plain) continue;
