@@ -24,7 +24,7 @@ import { parseIsoDateTime } from './isoTime.js';
 import { LogBuilder } from './logBuilder.js';
 import { parseDecimal } from './parseNumber.js';
 import { toPlainText } from './plainText.js';
-import { attributeValue, plainXmlEvents, saxesXmlEvents, type XmlHandlers, type XmlStop } from './xmlEvents.js';
+import { attributeValue, readXml, type XmlReading, type XmlStop } from './xmlEvents.js';
 
 function localName(name: string): string {
   const colon = name.indexOf(':');
@@ -52,17 +52,11 @@ interface PointText {
  * @throws ParseError when the text is not a GPX document, or it has no timed track point.
  */
 export function parseGpx(text: string, file: string): FlightLog {
-  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
-  // A plain document (the usual track log) is read by the fast scanner; any other, from the start again,
-  // by saxes. Both give the same events, so the reading is the same (test/import/xmlEvents.test.ts).
-  const plain = gpxReading(file);
-  if (plainXmlEvents(body, plain.handlers)) return plain.finish(undefined);
-  const full = gpxReading(file);
-  return full.finish(saxesXmlEvents(body, full.handlers));
+  return readXml(text, () => gpxReading(file));
 }
 
 /** The state of one reading of a GPX document: the handlers of its XML events, and the FlightLog made at the end. */
-function gpxReading(file: string): { handlers: XmlHandlers; finish: (xmlError: XmlStop | undefined) => FlightLog } {
+function gpxReading(file: string): XmlReading<FlightLog> {
   const rows = new LogBuilder();
   const warnings: LogWarning[] = [];
   const noTime = new LineTally();

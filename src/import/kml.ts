@@ -15,7 +15,7 @@ import { parseIsoDateTime } from './isoTime.js';
 import { LogBuilder } from './logBuilder.js';
 import { parseDecimal } from './parseNumber.js';
 import { toPlainText } from './plainText.js';
-import { plainXmlEvents, saxesXmlEvents, type XmlHandlers, type XmlStop } from './xmlEvents.js';
+import { readXml, type XmlReading, type XmlStop } from './xmlEvents.js';
 
 function localName(name: string): string {
   const colon = name.indexOf(':');
@@ -36,16 +36,11 @@ interface TrackInProgress {
  * @throws ParseError when the document has no gx:Track (an untimed LineString gets its own hint).
  */
 export function parseKml(text: string, file: string): FlightLog {
-  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
-  // As for GPX: a plain document by the fast scanner, any other from the start again by saxes (same events).
-  const plain = kmlReading(file);
-  if (plainXmlEvents(body, plain.handlers)) return plain.finish(undefined);
-  const full = kmlReading(file);
-  return full.finish(saxesXmlEvents(body, full.handlers));
+  return readXml(text, () => kmlReading(file));
 }
 
 /** The state of one reading of a KML document: the handlers of its XML events, and the FlightLog made at the end. */
-function kmlReading(file: string): { handlers: XmlHandlers; finish: (xmlError: XmlStop | undefined) => FlightLog } {
+function kmlReading(file: string): XmlReading<FlightLog> {
   const rows = new LogBuilder();
   const warnings: LogWarning[] = [];
   const mismatch = new LineTally();

@@ -238,3 +238,22 @@ export function plainXmlEvents(text: string, h: XmlHandlers): boolean {
   }
   return rootClosed && stack.length === 0;
 }
+
+/** One reading of a document: the handlers of its events, and what it makes of them at the end (given the first well-formedness error, if any). */
+export interface XmlReading<T> {
+  handlers: XmlHandlers;
+  finish(stop: XmlStop | undefined): T;
+}
+
+/**
+ * Reads `text` (a leading byte-order mark dropped) with a fresh reading from `newReading`: by the plain
+ * scanner where the document is plain (the usual track log), else from the start again, with another
+ * fresh reading, by saxes. Both give the same events, so the result is the same either way.
+ */
+export function readXml<T>(text: string, newReading: () => XmlReading<T>): T {
+  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+  const plain = newReading();
+  if (plainXmlEvents(body, plain.handlers)) return plain.finish(undefined);
+  const full = newReading();
+  return full.finish(saxesXmlEvents(body, full.handlers));
+}
