@@ -14,6 +14,7 @@ import { maxRangeNm } from './maxRangeNm.js';
 import { fmtCount } from './pilotFormat.js';
 import { kthSmallestInPlace } from '../util/kthSmallestInPlace.js';
 import { wrap360 } from '../geo/angles.js';
+import { blankWhere } from '../util/blankWhere.js';
 import type {
   ReportDivergenceRow,
   ReportErrorPeak,
@@ -64,25 +65,24 @@ export function buildReportModel(a: FlightAnalysis, opts: ReportModelOptions = {
   const { state: s, field: f, compass: c, analysis: an } = a;
   const n = s.n;
 
-  const headingMagDeg = new Float64Array(n);
-  for (let i = 0; i < n; i++) headingMagDeg[i] = wrap360(s.headingDegTrue[i] - f.variationDeg[i]);
+  // The per-sample loops are in helpers, so that this function, run once per flight, is not compiled by
+  // the JIT as a whole for their sake.
+  const headingMagDeg = magneticHeadingsDeg(s.headingDegTrue, f.variationDeg);
   const first = firstFiniteFix(s.lat, s.lon);
   const plan = localPlanNm(s.lat, s.lon, s.lat[first] ?? 0, s.lon[first] ?? 0);
 
   // The headline errors are those of a card that still reads: samples flagged unreliable (card swinging,
   // on its stop, without directive force, weak-field zone) are left out of them and counted separately.
-  const reliableErrorDeg = new Float64Array(n);
-  for (let i = 0; i < n; i++) reliableErrorDeg[i] = c.unreliable[i] !== 0 ? NaN : c.errorDeg[i];
+  const reliableErrorDeg = blankWhere(c.errorDeg, c.unreliable);
   const peakRows = largestErrorPeaks(s.t, reliableErrorDeg, 5, 60);
   const forced: number[] = [...peakRows];
-  for (let i = 0; i < n; i++) if (i === 0 || i === n - 1 || s.segment[i] !== s.segment[i - 1] || s.segment[i] !== s.segment[i + 1]) forced.push(i);
+  pushSegmentEnds(s.segment, forced);
   for (const e of [...an.turns, ...an.episodes, ...an.excursions]) forced.push(e.startIndex, e.endIndex);
   for (const d of an.divergences) forced.push(d.startIndex, d.endIndex, peakRow(s.t, d.peakT, d.startIndex, d.endIndex));
   const rows = downsampleForDrawing(c.errorDeg, maxPoints, forced);
 
   const t0Utc = n > 0 ? s.t[0] : NaN;
-  const tRel = new Float64Array(n);
-  for (let i = 0; i < n; i++) tRel[i] = s.t[i] - t0Utc;
+  const tRel = shifted(s.t, t0Utc);
   const series: ReportSeries = {
     n: rows.length,
     t0Utc,
@@ -218,24 +218,8 @@ function buildGlance(
   const n = s.n;
   let last = n - 1;
   while (last > 0 && !(Number.isFinite(s.lat[last]) && Number.isFinite(s.lon[last]))) last--;
-  let sumSq = 0;
-  let nErr = 0;
-  let maxAbsErrorDeg = 0;
-  let unreliable = 0;
-  let caution = 0;
-  let blackout = 0;
   const maxRange = maxRangeNm(plan.eastNm, plan.northNm);
-  for (let i = 0; i < n; i++) {
-    const err = c.errorDeg[i];
-    if (Number.isFinite(err)) {
-      sumSq += err * err;
-      nErr++;
-      if (c.unreliable[i] === 0 && Math.abs(err) > maxAbsErrorDeg) maxAbsErrorDeg = Math.abs(err);
-    }
-    if (c.unreliable[i] !== 0) unreliable++;
-    if (f.zone[i] === ZONE_CAUTION) caution++;
-    if (f.zone[i] === ZONE_BLACKOUT) blackout++;
-  }
+  const { sumSq, nErr, maxAbsErrorDeg, unreliable, caution, blackout } = errorTallies(c.errorDeg, c.unreliable, f.zone);
   const alt = finiteRange(s.altM);
   const variation = finiteRange(f.variationDeg);
   const dip = finiteRange(f.dipDeg);
@@ -303,6 +287,51 @@ function mainCauseAt(a: FlightAnalysis, i: number): string {
     }
   }
   return best;
+}
+
+/**
+ * Over the whole flight: Σ error² and the count of finite errors, the largest |error| of a reliable card,
+ * the counts of unreliable samples and of samples in the caution and blackout zones.
+ */
+function errorTallies(errorDeg: Float64Array, unreliableFlag: Uint8Array, zone: Uint8Array) {
+  let sumSq = 0;
+  let nErr = 0;
+  let maxAbsErrorDeg = 0;
+  let unreliable = 0;
+  let caution = 0;
+  let blackout = 0;
+  for (let i = 0; i < errorDeg.length; i++) {
+    const err = errorDeg[i];
+    if (Number.isFinite(err)) {
+      sumSq += err * err;
+      nErr++;
+      if (unreliableFlag[i] === 0 && Math.abs(err) > maxAbsErrorDeg) maxAbsErrorDeg = Math.abs(err);
+    }
+    if (unreliableFlag[i] !== 0) unreliable++;
+    if (zone[i] === ZONE_CAUTION) caution++;
+    if (zone[i] === ZONE_BLACKOUT) blackout++;
+  }
+  return { sumSq, nErr, maxAbsErrorDeg, unreliable, caution, blackout };
+}
+
+/** Magnetic heading at each sample, true heading − variation (east +), in [0, 360). */
+function magneticHeadingsDeg(trueDeg: Float64Array, variationDeg: Float64Array): Float64Array {
+  const out = new Float64Array(trueDeg.length);
+  for (let i = 0; i < out.length; i++) out[i] = wrap360(trueDeg[i] - variationDeg[i]);
+  return out;
+}
+
+/** Appends the first and last row and the first and last row of every segment. */
+function pushSegmentEnds(segment: Int32Array, rows: number[]): void {
+  const n = segment.length;
+  for (let i = 0; i < n; i++) if (i === 0 || i === n - 1 || segment[i] !== segment[i - 1] || segment[i] !== segment[i + 1]) rows.push(i);
+}
+
+/** col − origin at each sample. */
+function shifted(col: Float64Array, origin: number): Float64Array {
+  const out = new Float64Array(col.length);
+  for (let i = 0; i < out.length; i++) out[i] = col[i] - origin;
+  return out;
 }
 
 /** An excursion's believed track on the plan view's frame, thinned to ≤ 400 points, rounded to 0.001 NM. */

@@ -5,6 +5,7 @@ import { circularMeanDeg, wrap180, wrap360 } from '../geo/angles.js';
 import type { FlightAnalysis } from '../flightAnalysis.js';
 import { ZONE_BLACKOUT, ZONE_CAUTION } from '../magnetic/fieldAlongPath.js';
 import { kthSmallestInPlace } from '../util/kthSmallestInPlace.js';
+import { blankWhere } from '../util/blankWhere.js';
 
 /** Version of the summary layout; bump when a field changes meaning. The JSON Schema is summary.schema.json. */
 export const SUMMARY_SCHEMA_VERSION = '1';
@@ -52,13 +53,6 @@ function largestFlag(col: Uint8Array): number {
   let m = 0;
   for (let i = 0; i < col.length; i++) if (col[i] > m) m = col[i];
   return m;
-}
-
-/** A copy of `col` with NaN where `mask` is set. */
-function blankWhere(col: Float64Array, mask: Uint8Array): Float64Array {
-  const out = new Float64Array(col.length);
-  for (let i = 0; i < out.length; i++) out[i] = mask[i] ? NaN : col[i];
-  return out;
 }
 
 /** How many entries of `mask` are set. */
