@@ -31,6 +31,12 @@ export interface XmlHandlers {
   close(name: string, line: number): void;
 }
 
+/** The value of attribute `name` among those of an `open` event; undefined when the tag has none of that name. */
+export function attributeValue(names: readonly string[], values: readonly string[], name: string): string | undefined {
+  for (let j = 0; j < names.length; j++) if (names[j] === name) return values[j];
+  return undefined;
+}
+
 /** The first well-formedness error of a document: saxes's message without its position, its line, and whether it came at the end of the text. */
 export interface XmlStop {
   message: string;
@@ -102,12 +108,6 @@ function isNameStart(c: number): boolean {
 function isNameChar(c: number): boolean {
   return isNameStart(c) || (c >= 48 && c <= 57) || c === 46 || c === 45;
 }
-/** The value of attribute `name` among those of an `open` event; undefined when the tag has none of that name. */
-export function attributeValue(names: readonly string[], values: readonly string[], name: string): string | undefined {
-  for (let j = 0; j < names.length; j++) if (names[j] === name) return values[j];
-  return undefined;
-}
-
 /** A Char of character data or an attribute value here: tab, LF, CR (checked apart), U+0020–U+D7FF, U+E000–U+FFFD. */
 function isPlainChar(c: number): boolean {
   return c >= SP ? c < 0xd800 || (c >= 0xe000 && c <= 0xfffd) : c === LF || c === TAB || c === CR;
