@@ -156,7 +156,8 @@ export function fillTemplate(template: string, values: Record<string, string>): 
  * @throws InputError when the template and the renderer disagree on placeholders
  */
 export function renderReport(model: ReportModel, assets: ReportAssets): string {
-  return fillTemplate(assets.html, pageValues(model, assets, inlinedPlotly(assets).text));
+  const plotly = inlinedPlotly(assets);
+  return fillTemplate(assets.html, pageValues(model, assets, plotly.hash, plotly.text));
 }
 
 /**
@@ -167,12 +168,11 @@ export function renderReport(model: ReportModel, assets: ReportAssets): string {
 export function renderReportChunks(model: ReportModel, assets: ReportAssets): PageChunk[] {
   const plotly = inlinedPlotly(assets);
   plotly.bytes ??= new TextEncoder().encode(plotly.text);
-  return fillTemplateChunks(assets.html, pageValues(model, assets, plotly.bytes));
+  return fillTemplateChunks(assets.html, pageValues(model, assets, plotly.hash, plotly.bytes));
 }
 
-/** The template's values for one page, with the inlined chart library as given (its text or its bytes). */
-function pageValues<P extends PageChunk>(model: ReportModel, assets: ReportAssets, plotlyJs: P): Record<string, string | P> {
-  const plotly = inlinedPlotly(assets);
+/** The template's values for one page, with the inlined chart library as given (its text or its bytes) and its CSP hash. */
+function pageValues<P extends PageChunk>(model: ReportModel, assets: ReportAssets, plotlyHash: string, plotlyJs: P): Record<string, string | P> {
   const pageJs = inlineScriptSource(assets.js);
   const labelled = new Set([...model.divergences].sort((a, b) => Math.abs(b.peakErrorDeg) - Math.abs(a.peakErrorDeg)).slice(0, 12));
   const { row: _rows, ...drawnSeries } = model.series;
@@ -208,7 +208,7 @@ function pageValues<P extends PageChunk>(model: ReportModel, assets: ReportAsset
       ? `Every sample is drawn (${fmtCount(d.samples)}).`
       : `Drawn: ${fmtCount(d.drawn)} of ${fmtCount(d.samples)} samples (${d.method}). The samples CSV holds every sample.`;
   return {
-    CSP: escapeHtml(reportCsp([plotly.hash, scriptHash(pageJs, assets)])),
+    CSP: escapeHtml(reportCsp([plotlyHash, scriptHash(pageJs, assets)])),
     TITLE: escapeHtml(model.title),
     CSS: assets.css.replace(/<\/style/gi, '<\\/style'),
     SUBTITLE: escapeHtml(subtitle),
