@@ -15,7 +15,7 @@ import { parseIsoDateTime } from './isoTime.js';
 import { LogBuilder } from './logBuilder.js';
 import { parseDecimal } from './parseNumber.js';
 import { toPlainText } from './plainText.js';
-import { readXml, type XmlReading, type XmlStop } from './xmlEvents.js';
+import { readXml, type XmlHandlers, type XmlReading, type XmlStop } from './xmlEvents.js';
 
 function localName(name: string): string {
   const colon = name.indexOf(':');
@@ -36,95 +36,108 @@ interface TrackInProgress {
  * @throws ParseError when the document has no gx:Track (an untimed LineString gets its own hint).
  */
 export function parseKml(text: string, file: string): FlightLog {
-  return readXml(text, () => kmlReading(file));
+  return readXml(text, () => new KmlReading(file));
 }
 
-/** The state of one reading of a KML document: the handlers of its XML events, and the FlightLog made at the end. */
-function kmlReading(file: string): XmlReading<FlightLog> {
-  const rows = new LogBuilder();
-  const warnings: LogWarning[] = [];
-  const mismatch = new LineTally();
-  const badCoord = new LineTally();
-  const stack: string[] = [];
-  let rootSeen = false;
-  let rootClosed = false;
-  let track: TrackInProgress | undefined;
-  let tracks = 0;
-  let lineStrings = 0;
-  let nonAbsolute = 0;
-  let name: string | undefined;
-  let desc: string | undefined;
-  let capture: string | undefined;
-  let captured = '';
-  let tagLine = 1;
-  let trackLine = 0;
-  let lastComplete = 0;
-  let pointsSeen = 0;
+/**
+ * The state of one reading of a KML document: the handlers of its XML events, and the FlightLog made at
+ * the end. A class, as in gpx.ts, so that its compiled methods carry over from one file of a batch to the next.
+ */
+class KmlReading implements XmlReading<FlightLog>, XmlHandlers {
+  readonly handlers: XmlHandlers = this;
+  private readonly rows = new LogBuilder();
+  private readonly warnings: LogWarning[] = [];
+  private readonly mismatch = new LineTally();
+  private readonly badCoord = new LineTally();
+  private readonly stack: string[] = [];
+  private rootSeen = false;
+  private rootClosed = false;
+  private track: TrackInProgress | undefined;
+  private tracks = 0;
+  private lineStrings = 0;
+  private nonAbsolute = 0;
+  private name: string | undefined;
+  private desc: string | undefined;
+  private capture: string | undefined;
+  private captured = '';
+  private tagLine = 1;
+  private trackLine = 0;
+  private lastComplete = 0;
+  private pointsSeen = 0;
 
-  const flushTrack = (complete: boolean) => {
+  constructor(private readonly file: string) {}
+
+  private flushTrack(complete: boolean): void {
+    const track = this.track;
     if (!track) return;
     const n = Math.min(track.when.length, track.coords.length);
-    if (complete && track.when.length !== track.coords.length) mismatch.add(trackLine);
+    if (complete && track.when.length !== track.coords.length) this.mismatch.add(this.trackLine);
     const absolute = track.altitudeMode === 'absolute';
-    if (!absolute && n > 0) nonAbsolute++;
+    if (!absolute && n > 0) this.nonAbsolute++;
     for (let i = 0; i < n; i++) {
       const [lon, lat, alt, line] = track.coords[i];
-      rows.addRow(track.when[i], lat, lon, absolute ? alt : NaN, line);
+      this.rows.addRow(track.when[i], lat, lon, absolute ? alt : NaN, line);
     }
-    pointsSeen += Math.max(track.when.length, track.coords.length);
-    track = undefined;
-  };
+    this.pointsSeen += Math.max(track.when.length, track.coords.length);
+    this.track = undefined;
+  }
 
-  const openStart = (line: number) => {
-    tagLine = line;
-  };
-  const open = (tagName: string) => {
+  openStart(line: number): void {
+    this.tagLine = line;
+  }
+
+  open(tagName: string): void {
     const n = localName(tagName);
-    if (!rootSeen) {
-      rootSeen = true;
-      if (n !== 'kml') throw new ParseError(`the XML document's root element is <${tagName}>, not <kml>`, { line: tagLine });
+    if (!this.rootSeen) {
+      this.rootSeen = true;
+      if (n !== 'kml') throw new ParseError(`the XML document's root element is <${tagName}>, not <kml>`, { line: this.tagLine });
     }
+    const stack = this.stack;
     const parent = stack.length > 0 ? stack[stack.length - 1] : '';
     stack.push(n);
     if (n === 'Track') {
-      tracks++;
-      trackLine = tagLine;
-      track = { when: [], coords: [], altitudeMode: 'clampToGround' };
-    } else if (n === 'LineString') lineStrings++;
-    if ((track && (n === 'when' || n === 'coord' || n === 'altitudeMode')) || ((n === 'name' || n === 'description') && (parent === 'Document' || parent === 'Placemark'))) {
-      capture = n;
-      captured = '';
+      this.tracks++;
+      this.trackLine = this.tagLine;
+      this.track = { when: [], coords: [], altitudeMode: 'clampToGround' };
+    } else if (n === 'LineString') this.lineStrings++;
+    if ((this.track && (n === 'when' || n === 'coord' || n === 'altitudeMode')) || ((n === 'name' || n === 'description') && (parent === 'Document' || parent === 'Placemark'))) {
+      this.capture = n;
+      this.captured = '';
     }
-  };
-  const onText = (chunk: string) => {
-    if (capture !== undefined) captured += chunk;
-  };
-  const close = (tagName: string, line: number) => {
+  }
+
+  text(chunk: string): void {
+    if (this.capture !== undefined) this.captured += chunk;
+  }
+
+  close(tagName: string, line: number): void {
     const n = localName(tagName);
-    stack.pop();
-    if (capture !== undefined && capture === n) {
+    this.stack.pop();
+    const track = this.track;
+    if (this.capture !== undefined && this.capture === n) {
+      const captured = this.captured;
       if (n === 'when' && track) track.when.push(parseIsoDateTime(captured.trim(), 0));
       else if (n === 'coord' && track) {
         const parts = captured.trim().split(/\s+/);
         const lon = parseDecimal(parts[0]);
         const lat = parseDecimal(parts[1]);
         const alt = parts.length > 2 ? parseDecimal(parts[2]) : NaN;
-        if (!Number.isFinite(lon) || !Number.isFinite(lat)) badCoord.add(tagLine);
-        track.coords.push([lon, lat, alt, tagLine]);
-        lastComplete = line;
+        if (!Number.isFinite(lon) || !Number.isFinite(lat)) this.badCoord.add(this.tagLine);
+        track.coords.push([lon, lat, alt, this.tagLine]);
+        this.lastComplete = line;
       } else if (n === 'altitudeMode' && track) track.altitudeMode = captured.trim();
-      else if (n === 'name' && name === undefined) name = toPlainText(captured);
-      else if (n === 'description' && desc === undefined) desc = toPlainText(captured);
-      capture = undefined;
+      else if (n === 'name' && this.name === undefined) this.name = toPlainText(captured);
+      else if (n === 'description' && this.desc === undefined) this.desc = toPlainText(captured);
+      this.capture = undefined;
     }
-    if (n === 'Track') flushTrack(true);
-    if (stack.length === 0) rootClosed = true;
-  };
-  return { handlers: { openStart, open, text: onText, close }, finish };
+    if (n === 'Track') this.flushTrack(true);
+    if (this.stack.length === 0) this.rootClosed = true;
+  }
 
-  function finish(xmlError: XmlStop | undefined): FlightLog {
-    const truncated = xmlError !== undefined && !rootClosed;
-    if (truncated) flushTrack(false);
+  finish(xmlError: XmlStop | undefined): FlightLog {
+    const truncated = xmlError !== undefined && !this.rootClosed;
+    if (truncated) this.flushTrack(false);
+    const { rows, warnings, mismatch, badCoord, rootSeen, tracks, lineStrings, lastComplete, nonAbsolute, pointsSeen, name, desc, file } = this;
     if (!rootSeen) throw new ParseError('no XML element found', { hint: 'expected a KML 2.2 document starting with <kml>' });
     if (xmlError && rows.length === 0) {
       throw new ParseError(`the KML file is not well-formed XML: ${xmlError.message}`, { line: xmlError.line });
