@@ -47,6 +47,18 @@ export function kasaCircleFit(x: ArrayLike<number>, y: ArrayLike<number>, i0 = 0
   return { cx: mx - D / 2, cy: my - E / 2, r: r2 > 0 ? Math.sqrt(r2) : NaN };
 }
 
+/** Σ (distance to (a, b) − rr)² over the finite points i0 ≤ i < i1: the cost that the geometric fit minimises. */
+function radialCost(x: ArrayLike<number>, y: ArrayLike<number>, i0: number, i1: number, a: number, b: number, rr: number): number {
+  let s = 0;
+  for (let i = i0; i < i1; i++) {
+    if (!(Number.isFinite(x[i]) && Number.isFinite(y[i]))) continue;
+    const dx = x[i] - a, dy = y[i] - b;
+    const e = Math.sqrt(dx * dx + dy * dy) - rr;
+    s += e * e;
+  }
+  return s;
+}
+
 /**
  * Geometric circle fit: minimises Σ (|p_i − c| − r)² by Levenberg–Marquardt from `start` (e.g. Kasa's
  * fit), as in N. Chernov & C. Lesort, "Least squares fitting of circles", J. Math. Imaging Vis.
@@ -65,18 +77,8 @@ export function geometricCircleFit(
   let cx = start.cx, cy = start.cy, r = start.r;
   const bad: GeometricCircleFit = { cx: NaN, cy: NaN, r: NaN, cov: new Float64Array(9).fill(NaN), rmsResidual: NaN, iterations: 0, converged: false };
   if (!(Number.isFinite(cx) && Number.isFinite(cy) && Number.isFinite(r))) return bad;
-  const cost = (a: number, b: number, rr: number): number => {
-    let s = 0;
-    for (let i = i0; i < i1; i++) {
-      if (!(Number.isFinite(x[i]) && Number.isFinite(y[i]))) continue;
-      const dx = x[i] - a, dy = y[i] - b;
-      const e = Math.sqrt(dx * dx + dy * dy) - rr;
-      s += e * e;
-    }
-    return s;
-  };
   let lambda = 1e-3;
-  let c0 = cost(cx, cy, r);
+  let c0 = radialCost(x, y, i0, i1, cx, cy, r);
   let it = 0;
   let converged = false;
   const N = new Float64Array(6); // JᵀJ, symmetric: 00 01 02 11 12 22
@@ -87,7 +89,7 @@ export function geometricCircleFit(
     for (let k = 0; k < 12; k++) {
       const d = solveSym3(N[0] * (1 + lambda), N[1], N[2], N[3] * (1 + lambda), N[4], N[5] * (1 + lambda), -g[0], -g[1], -g[2]);
       const na = cx + d[0], nb = cy + d[1], nr = r + d[2];
-      const c1 = cost(na, nb, nr);
+      const c1 = radialCost(x, y, i0, i1, na, nb, nr);
       if (c1 <= c0) {
         const size = Math.abs(d[0]) + Math.abs(d[1]) + Math.abs(d[2]);
         cx = na; cy = nb; r = nr;
