@@ -1,4 +1,4 @@
-// `compass-debrief batch <folders or files…> --out-dir DIR`: every log debriefed on worker threads, an
+// `compass-debrief batch <folders or files…> --out-dir DIR`: every log debriefed in analysis processes, an
 // overview page and CSV, and a catalogue of the flights; unchanged flights are kept from the last run.
 import { parseFormatOption, readOptionsFrom } from './readOptions.js';
 import os from 'node:os';

@@ -87,7 +87,7 @@ Example:
 
 Debriefs every flight log given or found in the folders (searched recursively: files ending .gpx .csv
 .igc .nmea .txt .fit .kml, and other files whose content is a log; compass-swing records and other
-files are left out with a note), several at a time on worker threads. DIR receives one debrief per
+files are left out with a note), several at a time in analysis processes. DIR receives one debrief per
 flight (<name>.debrief.html, <name>.samples.csv, <name>.summary.json), index.html (an overview linking
 to each debrief, with each pilot's compass-turn grades across lessons and each aircraft's compass error
 across the season), overview.csv, and catalogue.sqlite (one row per flight, kept across runs). A flight

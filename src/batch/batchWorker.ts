@@ -1,6 +1,6 @@
-// Worker-thread entry of the batch: receives one job at a time, debriefs it, posts the outcome back.
-// The report template and chart library are read once per worker. Only the main thread writes the catalogue.
-import { parentPort } from 'node:worker_threads';
+// Entry of a batch's analysis process (workerPool.ts): receives one job at a time over the IPC channel,
+// debriefs it, sends the outcome back. The report template and chart library are read once, at start-up,
+// while the parent still plans the batch. Only the parent writes the catalogue.
 import { loadReportAssets } from '../report/loadReportAssets.js';
 import type { ReportAssets } from '../report/renderReport.js';
 import { failureLine, runBatchJob, type BatchJob, type BatchJobOutcome } from './batchJob.js';
@@ -17,10 +17,18 @@ export interface WorkerReply {
   outcome: BatchJobOutcome;
 }
 
-/** Serves jobs on `port` until the main thread terminates the worker. */
-export function serveBatchJobs(port: NonNullable<typeof parentPort>): void {
+/** Serves jobs from the parent process until it stops this one, or goes away (then this one exits too). */
+export function serveBatchJobs(): void {
+  const send = process.send?.bind(process);
+  if (!send) throw new Error('batchWorker runs as a child process with an IPC channel (workerPool.ts)');
   let assets: ReportAssets | undefined;
-  port.on('message', async (m: WorkerRequest) => {
+  try {
+    assets = loadReportAssets();
+  } catch {
+    // Reported with the first job, which fails on the same error.
+  }
+  process.on('disconnect', () => process.exit(0));
+  process.on('message', async (m: WorkerRequest) => {
     let outcome: BatchJobOutcome;
     try {
       assets ??= loadReportAssets();
@@ -28,8 +36,8 @@ export function serveBatchJobs(port: NonNullable<typeof parentPort>): void {
     } catch (err) {
       outcome = { status: 'failed', ...failureLine(m.job.logPath, m.job.displayPath, err), elapsedMs: 0 };
     }
-    port.postMessage({ id: m.id, outcome } satisfies WorkerReply);
+    send({ id: m.id, outcome } satisfies WorkerReply);
   });
 }
 
-if (parentPort) serveBatchJobs(parentPort);
+if (process.send) serveBatchJobs();

@@ -1,5 +1,5 @@
-// The batch: find the logs, skip the unchanged ones, debrief the rest on worker threads, catalogue each
-// flight as it finishes (main thread only, one transaction per flight), then write the overview.
+// The batch: find the logs, skip the unchanged ones, debrief the rest in analysis processes (workerPool.ts),
+// catalogue each flight as it finishes (this process only, one transaction per flight), then write the overview.
 import type { ReadOptions } from '../import/readLog.js';
 import { existsSync, promises as fsp, readFileSync } from 'node:fs';
 import path from 'node:path';
@@ -20,9 +20,9 @@ import { overviewCsv } from './overviewCsv.js';
 import { overviewHtml } from './overviewHtml.js';
 import { readPlanSideFile, readTags, type FlightTags } from './sideFiles.js';
 import { reportFiles, uniqueReportBases } from './reportNames.js';
-import { runOnWorkers } from './workerPool.js';
+import { WorkerPool } from './workerPool.js';
 
-/** Most worker threads a batch starts (the --jobs range is 1..MAX_JOBS). */
+/** Most analysis processes a batch starts (the --jobs range is 1..MAX_JOBS). */
 export const MAX_JOBS = 64;
 
 export interface BatchSettings {
@@ -141,7 +141,7 @@ interface Planned {
 
 /**
  * Runs a batch (see BatchSettings). Every log found is debriefed by the same steps as `report`
- * (debriefOneFlight) on a worker thread, unless the catalogue in the output folder already holds it with
+ * (debriefOneFlight) in an analysis process, unless the catalogue in the output folder already holds it with
  * the same content hash, options hash and tool version and its outputs are still there (then it is kept
  * as it is; `force` analyses it again). Each finished flight is committed to the catalogue before the next
  * result is taken, so a crash loses only the flights still in progress. A broken log becomes a failed row
@@ -163,6 +163,23 @@ export async function runBatch(s: BatchSettings): Promise<BatchResult> {
   const now = (s.now ?? (() => new Date()))();
   const version = toolVersion();
   const { logs, skipped } = await findLogs(s.inputs, { cwd: s.cwd, excludeDirs: [outAbs] });
+  // Started now, so that their start-up (about 0.2 s of module loading each) overlaps the hashing and
+  // planning below; those not needed (flights unchanged since the last run) are stopped unused.
+  const pool = new WorkerPool<BatchJob, BatchJobOutcome>(s.workerEntry ?? defaultWorkerEntry(), Math.min(s.jobs, logs.length));
+  try {
+    return await planAndRun(s, logs, skipped, pool, { outAbs, now, version });
+  } finally {
+    pool.close();
+  }
+}
+
+async function planAndRun(
+  s: BatchSettings,
+  logs: FoundLog[],
+  skipped: SkippedPath[],
+  pool: WorkerPool<BatchJob, BatchJobOutcome>,
+  { outAbs, now, version }: { outAbs: string; now: Date; version: string },
+): Promise<BatchResult> {
   const bases = uniqueReportBases(logs.map((l) => l.absPath));
   const sideInputs = [s.compass?.file, s.deviation?.file].filter((p): p is string => p !== undefined).map((p) => path.resolve(s.cwd, p));
 
@@ -206,7 +223,7 @@ export async function runBatch(s: BatchSettings): Promise<BatchResult> {
   const cataloguePath = path.join(outAbs, CATALOGUE_FILE);
   const catalogue = openCatalogue(cataloguePath);
   try {
-    return await runPlanned(s, planned, skipped, catalogue, { outAbs, now, version, sideInputs });
+    return await runPlanned(s, planned, skipped, catalogue, pool, { outAbs, now, version, sideInputs });
   } finally {
     catalogue.close();
   }
@@ -227,6 +244,7 @@ async function runPlanned(
   planned: Planned[],
   skipped: SkippedPath[],
   catalogue: FlightCatalogue,
+  pool: WorkerPool<BatchJob, BatchJobOutcome>,
   ctx: { outAbs: string; now: Date; version: string; sideInputs: string[] },
 ): Promise<BatchResult> {
   const flights: (OverviewFlight | undefined)[] = new Array(planned.length);
@@ -304,7 +322,7 @@ async function runPlanned(
     };
   });
   const stale: number[] = [];
-  await runOnWorkers<BatchJob, BatchJobOutcome>(s.workerEntry ?? defaultWorkerEntry(), jobs, s.jobs, (k, result) => {
+  await pool.run(jobs, (k, result) => {
     const i = toAnalyse[k];
     const p = planned[i];
     if (result.kind === 'reply' && result.value.status === 'ok') {

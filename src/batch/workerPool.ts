@@ -1,87 +1,145 @@
-// A fixed pool of worker threads working through a list of jobs, one job per worker at a time.
-import type { Worker } from 'node:worker_threads';
-import { startWorker } from './sourceWorker.js';
+// A fixed pool of analysis processes working through a list of jobs, one job per process at a time.
+import os from 'node:os';
+import { startAnalysisProcess, type AnalysisProcess } from './analysisProcess.js';
 
 /** What came back for one job: the worker's reply, or why the worker stopped while it had the job. */
 export type PoolResult<R> = { kind: 'reply'; value: R } | { kind: 'crash'; message: string };
 
+interface Slot {
+  proc: AnalysisProcess;
+  /** Index of the job it holds, or -1. */
+  current: number;
+}
+
+interface Run<J, R> {
+  jobs: readonly J[];
+  onDone: (index: number, result: PoolResult<R>) => void;
+  next: number;
+  finished: number;
+  failed: boolean;
+  resolve: () => void;
+  reject: (err: unknown) => void;
+}
+
 /**
- * Runs `jobs` on up to `size` workers started from `entry` (a module that answers each message
- * `{ id, job }` with one message `{ id, outcome }`). `onDone(index, result)` is called on the main
- * thread as each job finishes, in completion order. A worker that throws, runs out of memory or exits
- * while it holds a job is reported for that job as a crash and replaced, and the rest go on.
- * Resolves when every job is done; rejects (terminating the workers) if `onDone` throws.
- * @param size 1..64 workers (never more than there are jobs)
+ * Analysis processes started from `entry` (a module that answers each message `{ id, job }` with one
+ * message `{ id, outcome }`), started when the pool is made so that their start-up overlaps whatever the
+ * caller does before `run` (the batch hashes and plans its inputs meanwhile). When there are at least as
+ * many processes as processors, each compiles in line (analysisProcess.ts says why).
  */
-export function runOnWorkers<J, R>(
-  entry: URL,
-  jobs: readonly J[],
-  size: number,
-  onDone: (index: number, result: PoolResult<R>) => void,
-): Promise<void> {
-  return new Promise((resolve, reject) => {
-    let next = 0;
-    let finished = 0;
-    let failed = false;
-    const live = new Set<Worker>();
-    if (jobs.length === 0) {
-      resolve();
+export class WorkerPool<J, R> {
+  private readonly live = new Set<Slot>();
+  private readonly inLineCompile: boolean;
+  private active: Run<J, R> | undefined;
+  private closed = false;
+
+  /** @param size 0..64 processes to start now (`run` starts one when there are none) */
+  constructor(
+    private readonly entry: URL,
+    private readonly size: number,
+    processors = os.availableParallelism(),
+  ) {
+    this.inLineCompile = size >= processors;
+    for (let k = 0; k < size; k++) this.spawn();
+  }
+
+  /**
+   * Runs `jobs`, calling `onDone(index, result)` as each finishes, in completion order. A process that
+   * throws, runs out of memory or exits while it holds a job is reported for that job as a crash and
+   * replaced, and the rest go on. Resolves when every job is done; rejects (stopping the processes) if
+   * `onDone` throws. Processes beyond the number of jobs are stopped.
+   */
+  run(jobs: readonly J[], onDone: (index: number, result: PoolResult<R>) => void): Promise<void> {
+    if (this.closed) return Promise.reject(new Error('the worker pool is closed'));
+    return new Promise((resolve, reject) => {
+      const r: Run<J, R> = { jobs, onDone, next: 0, finished: 0, failed: false, resolve, reject };
+      this.active = r;
+      if (jobs.length === 0) {
+        this.close();
+        resolve();
+        return;
+      }
+      while (this.live.size < Math.max(1, Math.min(this.size, jobs.length))) this.spawn();
+      for (const s of [...this.live]) this.give(s);
+    });
+  }
+
+  /** Stops every process. */
+  close(): void {
+    this.closed = true;
+    for (const s of this.live) s.proc.stop();
+    this.live.clear();
+  }
+
+  private spawn(): Slot {
+    const slot: Slot = { proc: undefined as unknown as AnalysisProcess, current: -1 };
+    slot.proc = startAnalysisProcess(this.entry, this.inLineCompile, {
+      message: (m) => this.onMessage(slot, m as { id: number; outcome: R }),
+      exit: (why) => this.onExit(slot, why),
+    });
+    this.live.add(slot);
+    return slot;
+  }
+
+  private give(s: Slot): void {
+    const r = this.active;
+    if (!r || r.failed || r.next >= r.jobs.length) {
+      s.current = -1;
+      this.live.delete(s);
+      s.proc.stop();
       return;
     }
+    s.current = r.next++;
+    s.proc.send({ id: s.current, job: r.jobs[s.current] });
+  }
 
-    const stopAll = () => {
-      for (const w of live) void w.terminate();
-      live.clear();
-    };
-    const complete = (index: number, result: PoolResult<R>): boolean => {
-      try {
-        onDone(index, result);
-      } catch (err) {
-        failed = true;
-        stopAll();
-        reject(err);
-        return false;
-      }
-      finished++;
-      if (finished === jobs.length) {
-        stopAll();
-        resolve();
-      }
-      return true;
-    };
+  private onMessage(s: Slot, m: { id: number; outcome: R }): void {
+    if (m.id !== s.current) return;
+    s.current = -1;
+    // The next job goes out before this one is recorded, so the process does not wait on the caller.
+    this.give(s);
+    this.complete(m.id, { kind: 'reply', value: m.outcome });
+  }
 
-    const spawn = () => {
-      const w = startWorker(entry);
-      live.add(w);
-      let current = -1;
-      const give = () => {
-        if (failed || next >= jobs.length) {
-          current = -1;
-          live.delete(w);
-          void w.terminate();
-          return;
-        }
-        current = next++;
-        w.postMessage({ id: current, job: jobs[current] });
-      };
-      const crashed = (message: string) => {
-        live.delete(w);
-        const index = current;
-        current = -1;
-        if (failed || index < 0) return;
-        if (!complete(index, { kind: 'crash', message })) return;
-        if (next < jobs.length) spawn();
-      };
-      w.on('message', (m: { id: number; outcome: R }) => {
-        if (m.id !== current) return;
-        current = -1;
-        if (complete(m.id, { kind: 'reply', value: m.outcome })) give();
-      });
-      w.on('error', (err) => crashed(`the analysis worker stopped: ${err.message.split('\n')[0]}`));
-      w.on('exit', (code) => crashed(`the analysis worker exited (code ${code})`));
-      give();
-    };
+  private onExit(s: Slot, why: string | undefined): void {
+    const wasLive = this.live.delete(s);
+    const index = s.current;
+    s.current = -1;
+    const r = this.active;
+    if (!r || r.failed || index < 0) {
+      // A process that died before it was given work is replaced when the run starts.
+      return;
+    }
+    if (!this.complete(index, { kind: 'crash', message: why ?? 'the analysis worker exited' })) return;
+    if (wasLive && !this.closed && r.next < r.jobs.length) {
+      this.give(this.spawn());
+    }
+  }
 
-    for (let k = 0; k < Math.min(size, jobs.length); k++) spawn();
-  });
+  private complete(index: number, result: PoolResult<R>): boolean {
+    const r = this.active as Run<J, R>;
+    try {
+      r.onDone(index, result);
+    } catch (err) {
+      r.failed = true;
+      this.close();
+      r.reject(err);
+      return false;
+    }
+    r.finished++;
+    if (r.finished === r.jobs.length) {
+      this.close();
+      r.resolve();
+    }
+    return true;
+  }
+}
+
+/**
+ * Runs `jobs` on up to `size` analysis processes started from `entry`: a pool made for these jobs alone
+ * (see WorkerPool.run).
+ * @param size 1..64 processes (never more than there are jobs)
+ */
+export function runOnWorkers<J, R>(entry: URL, jobs: readonly J[], size: number, onDone: (index: number, result: PoolResult<R>) => void): Promise<void> {
+  return new WorkerPool<J, R>(entry, Math.max(1, Math.min(size, jobs.length)), os.availableParallelism()).run(jobs, onDone);
 }

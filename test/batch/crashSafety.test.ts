@@ -8,7 +8,7 @@ import { fileURLToPath } from 'node:url';
 import Database from 'better-sqlite3';
 import { tempDir } from '../cli/runCli.js';
 import { runBatch } from '../../src/batch/runBatch.js';
-import { sourceLoaderImportUrl } from '../../src/batch/sourceWorker.js';
+import { sourceLoaderImportUrl } from '../../src/batch/sourceLoader.js';
 import { writeLessonGpx, utc } from './batchFixtures.js';
 
 function rows(outDir: string): Record<string, unknown>[] {

@@ -1,8 +1,7 @@
-// Starting a worker thread from a module URL, built (.js) or, when running from the TypeScript sources
-// (vitest), .ts through a small loader that strips the types with the TypeScript compiler's transpileModule.
+// Running a module from the TypeScript sources (vitest) in a child process: a small loader, given to
+// `node --import`, that strips the types with the TypeScript compiler's transpileModule.
 import { createRequire } from 'node:module';
 import { pathToFileURL } from 'node:url';
-import { Worker, type WorkerOptions } from 'node:worker_threads';
 
 /**
  * Node module customization hooks (node:module register, Node ≥ 20.6): `.js` specifiers written in the
@@ -38,17 +37,4 @@ export function sourceLoaderImportUrl(): string {
   const tsUrl = pathToFileURL(createRequire(import.meta.url).resolve('typescript')).href;
   const register = `import { register } from 'node:module'; register(${JSON.stringify('data:text/javascript,' + encodeURIComponent(loaderSource(tsUrl)))});`;
   return 'data:text/javascript,' + encodeURIComponent(register);
-}
-
-/**
- * Starts a worker on the module at `entry`. A `.js` entry runs as is; a `.ts` entry (sources under
- * vitest) runs behind the type-stripping loader, which needs the `typescript` package (a dev dependency).
- */
-export function startWorker(entry: URL, options: WorkerOptions = {}): Worker {
-  if (!entry.pathname.endsWith('.ts')) return new Worker(entry, options);
-  const boot = `(async () => {
-    await import(${JSON.stringify(sourceLoaderImportUrl())});
-    await import(${JSON.stringify(entry.href)});
-  })().catch((e) => { setImmediate(() => { throw e; }); });`;
-  return new Worker(boot, { ...options, eval: true });
 }
