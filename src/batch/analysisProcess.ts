@@ -22,8 +22,10 @@ const STDERR_KEPT = 16_384;
 /** A running analysis process. */
 export interface AnalysisProcess {
   send(message: unknown): void;
-  /** Asks the process to stop (SIGTERM); its `onExit` follows. */
+  /** Asks the process to stop (SIGTERM); its `exit` event follows. */
   stop(): void;
+  /** Settles when the process has ended and been reaped. */
+  readonly ended: Promise<void>;
 }
 
 /** What the pool hears from one analysis process. */
@@ -54,9 +56,12 @@ export function startAnalysisProcess(entry: URL, inLineCompile: boolean, on: Ana
   });
   let ended = false;
   let stopping = false;
+  let settle = () => {};
+  const endedPromise = new Promise<void>((resolve) => (settle = resolve));
   const end = (why: string | undefined) => {
     if (ended) return;
     ended = true;
+    settle();
     on.exit(why);
   };
   child.on('message', (m) => on.message(m));
@@ -79,5 +84,6 @@ export function startAnalysisProcess(entry: URL, inLineCompile: boolean, on: Ana
       stopping = true;
       if (!ended) child.kill('SIGTERM');
     },
+    ended: endedPromise,
   };
 }

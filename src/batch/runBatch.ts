@@ -169,7 +169,7 @@ export async function runBatch(s: BatchSettings): Promise<BatchResult> {
   try {
     return await planAndRun(s, logs, skipped, pool, { outAbs, now, version });
   } finally {
-    pool.close();
+    await pool.close();
   }
 }
 

@@ -29,6 +29,7 @@ interface Run<J, R> {
  */
 export class WorkerPool<J, R> {
   private readonly live = new Set<Slot>();
+  private readonly started: Promise<void>[] = [];
   private readonly inLineCompile: boolean;
   private active: Run<J, R> | undefined;
   private closed = false;
@@ -55,7 +56,7 @@ export class WorkerPool<J, R> {
       const r: Run<J, R> = { jobs, onDone, next: 0, finished: 0, failed: false, resolve, reject };
       this.active = r;
       if (jobs.length === 0) {
-        this.close();
+        void this.close();
         resolve();
         return;
       }
@@ -64,11 +65,12 @@ export class WorkerPool<J, R> {
     });
   }
 
-  /** Stops every process. */
-  close(): void {
+  /** Stops every process; settles when all that were ever started have ended. */
+  close(): Promise<void> {
     this.closed = true;
     for (const s of this.live) s.proc.stop();
     this.live.clear();
+    return Promise.all(this.started).then(() => undefined);
   }
 
   private spawn(): Slot {
@@ -78,6 +80,7 @@ export class WorkerPool<J, R> {
       exit: (why) => this.onExit(slot, why),
     });
     this.live.add(slot);
+    this.started.push(slot.proc.ended);
     return slot;
   }
 
@@ -122,24 +125,15 @@ export class WorkerPool<J, R> {
       r.onDone(index, result);
     } catch (err) {
       r.failed = true;
-      this.close();
+      void this.close();
       r.reject(err);
       return false;
     }
     r.finished++;
     if (r.finished === r.jobs.length) {
-      this.close();
+      void this.close();
       r.resolve();
     }
     return true;
   }
-}
-
-/**
- * Runs `jobs` on up to `size` analysis processes started from `entry`: a pool made for these jobs alone
- * (see WorkerPool.run).
- * @param size 1..64 processes (never more than there are jobs)
- */
-export function runOnWorkers<J, R>(entry: URL, jobs: readonly J[], size: number, onDone: (index: number, result: PoolResult<R>) => void): Promise<void> {
-  return new WorkerPool<J, R>(entry, Math.max(1, Math.min(size, jobs.length)), os.availableParallelism()).run(jobs, onDone);
 }

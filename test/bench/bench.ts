@@ -120,7 +120,8 @@ async function main(): Promise<void> {
 
   // Batch speed-up from worker threads: N flights with --jobs 1 against --jobs 2 (a ratio, never asserted).
   const { benchBatchSpeedup } = await import('../batch/batchBench.js');
-  await benchBatchSpeedup(workDir);
+  await benchBatchSpeedup(workDir, 1, false);
+  await benchBatchSpeedup(workDir, 10, true);
 }
 
 main().catch((e) => {
