@@ -6,7 +6,9 @@ import { createReadStream } from 'node:fs';
 export function fileSha256(file: string): Promise<string> {
   return new Promise((resolve, reject) => {
     const h = createHash('sha256');
-    const s = createReadStream(file);
+    // 1 MiB reads: with the default 64 KiB, the round trips to the file system thread, not the hashing,
+    // took most of the time (24 logs of 3.8 MB: about 0.3 s against 0.1 s).
+    const s = createReadStream(file, { highWaterMark: 1 << 20 });
     s.on('error', reject);
     s.on('data', (chunk) => h.update(chunk));
     s.on('end', () => resolve(h.digest('hex')));

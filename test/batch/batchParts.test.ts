@@ -79,6 +79,17 @@ describe('re-run keys', () => {
     expect(await fileSha256(path.join(d, 'abc'))).toBe('ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad');
   });
 
+  it('hash a file of 1,000,000 "a" to the FIPS 180-2 example value, read in several pieces', async () => {
+    const d = tempDir('cd-key-');
+    // FIPS 180-2, Appendix B.3: SHA-256 of one million repetitions of "a". Under the 1 MiB read size, so
+    // also a file that spans two reads (the same text three times over) against node's one-shot hash.
+    writeFileSync(path.join(d, 'million-a'), 'a'.repeat(1_000_000));
+    expect(await fileSha256(path.join(d, 'million-a'))).toBe('cdc76e5c9914fb9281a1c7e284d73e67f1809a48a497200e046d39ccc7112cd0');
+    const three = Buffer.from('a'.repeat(3_000_000));
+    writeFileSync(path.join(d, 'three'), three);
+    expect(await fileSha256(path.join(d, 'three'))).toBe(createHash('sha256').update(three).digest('hex'));
+  });
+
   it('give equal option sets equal keys whatever their member order, and different ones different keys', () => {
     expect(canonicalJson({ b: 1, a: { d: [1, 2], c: null } })).toBe('{"a":{"c":null,"d":[1,2]},"b":1}');
     expect(optionsSha256({ wind: { kind: 'given', fromDegTrue: 250, speedMs: 7 }, pilot: 'x' })).toBe(optionsSha256({ pilot: 'x', wind: { speedMs: 7, fromDegTrue: 250, kind: 'given' } }));
