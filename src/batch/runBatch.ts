@@ -22,6 +22,9 @@ import { readPlanSideFile, readTags, type FlightTags } from './sideFiles.js';
 import { reportFiles, uniqueReportBases } from './reportNames.js';
 import { WorkerPool } from './workerPool.js';
 
+/** Logs whose hash and side files are read at once while planning. */
+const PLAN_AT_ONCE = 16;
+
 /** Most analysis processes a batch starts (the --jobs range is 1..MAX_JOBS). */
 export const MAX_JOBS = 64;
 
@@ -183,41 +186,12 @@ async function planAndRun(
   const bases = uniqueReportBases(logs.map((l) => l.absPath));
   const sideInputs = [s.compass?.file, s.deviation?.file].filter((p): p is string => p !== undefined).map((p) => path.resolve(s.cwd, p));
 
-  const planned: Planned[] = [];
-  for (let i = 0; i < logs.length; i++) {
-    const found = logs[i];
-    let sha = '';
-    let readError: string | undefined;
-    try {
-      const st = await fsp.stat(found.absPath);
-      if (st.isDirectory()) throw Object.assign(new Error('a directory'), { code: 'EISDIR' });
-      sha = await fileSha256(found.absPath);
-    } catch (err) {
-      readError = unreadLine(found.path, err);
-    }
-    let tags: FlightTags = {};
-    let plan: Planned['plan'];
-    let sideError: Planned['sideError'];
-    try {
-      tags = await readTags(found.absPath);
-      plan = await readPlanSideFile(found.absPath);
-    } catch (err) {
-      sideError = { error: err instanceof InputError ? err.oneLine() : String(err), errorKind: 'input' };
-    }
-    const aircraft = s.aircraft ?? tags.aircraft;
-    const pilot = s.pilot ?? tags.pilot;
-    const optionsSha = optionsSha256({
-      wind: s.wind,
-      compass: s.compass?.profile ?? null,
-      deviation: s.deviation?.coefficients ?? null,
-      toleranceDeg: s.toleranceDeg ?? null,
-      read: s.read ?? null,
-      aircraft: aircraft ?? null,
-      pilot: pilot ?? null,
-      plan: plan?.text ?? null,
-      sideError: sideError?.error ?? null,
-    });
-    planned.push({ found, base: bases[i], sha, tags: { ...tags, aircraft, pilot }, plan, sideError, optionsSha, readError });
+  // Each log's hash and side files are read PLAN_AT_ONCE at a time: the file-system round trips overlap
+  // (96 small logs: about 0.2 s one by one).
+  const planned: Planned[] = new Array(logs.length);
+  for (let i0 = 0; i0 < logs.length; i0 += PLAN_AT_ONCE) {
+    const batch = logs.slice(i0, i0 + PLAN_AT_ONCE).map((found, k) => planOne(s, found, bases[i0 + k]));
+    (await Promise.all(batch)).forEach((p, k) => (planned[i0 + k] = p));
   }
 
   const cataloguePath = path.join(outAbs, CATALOGUE_FILE);
@@ -227,6 +201,42 @@ async function planAndRun(
   } finally {
     catalogue.close();
   }
+}
+
+/** One log's entry in the plan: its content hash (or why it could not be read), tags, plan side file and options key. */
+async function planOne(s: BatchSettings, found: FoundLog, base: string): Promise<Planned> {
+  let sha = '';
+  let readError: string | undefined;
+  try {
+    const st = await fsp.stat(found.absPath);
+    if (st.isDirectory()) throw Object.assign(new Error('a directory'), { code: 'EISDIR' });
+    sha = await fileSha256(found.absPath);
+  } catch (err) {
+    readError = unreadLine(found.path, err);
+  }
+  let tags: FlightTags = {};
+  let plan: Planned['plan'];
+  let sideError: Planned['sideError'];
+  try {
+    tags = await readTags(found.absPath);
+    plan = await readPlanSideFile(found.absPath);
+  } catch (err) {
+    sideError = { error: err instanceof InputError ? err.oneLine() : String(err), errorKind: 'input' };
+  }
+  const aircraft = s.aircraft ?? tags.aircraft;
+  const pilot = s.pilot ?? tags.pilot;
+  const optionsSha = optionsSha256({
+    wind: s.wind,
+    compass: s.compass?.profile ?? null,
+    deviation: s.deviation?.coefficients ?? null,
+    toleranceDeg: s.toleranceDeg ?? null,
+    read: s.read ?? null,
+    aircraft: aircraft ?? null,
+    pilot: pilot ?? null,
+    plan: plan?.text ?? null,
+    sideError: sideError?.error ?? null,
+  });
+  return { found, base, sha, tags: { ...tags, aircraft, pilot }, plan, sideError, optionsSha, readError };
 }
 
 function outputsExist(outAbs: string, base: string): boolean {

@@ -53,7 +53,7 @@ async function timedBatch(logsDir: string, outDir: string, jobs: number): Promis
  * jobs-1 / jobs-2 time ratio. With `ceiling`, then this machine's two-thread ceiling.
  */
 export async function benchBatchSpeedup(workDir: string, hz = 1, ceiling = true, flights = 24, repeats = 3): Promise<number> {
-  const logsDir = path.join(workDir, `batch-logs-${hz}hz`);
+  const logsDir = path.join(workDir, `batch-logs-${flights}x${hz}hz`);
   rmSync(logsDir, { recursive: true, force: true });
   mkdirSync(logsDir, { recursive: true });
   const truth = simulateFlight(benchFlight(1, hz));
