@@ -76,6 +76,8 @@ export interface BatchResult {
   overviewPath: string;
   csvPath: string;
   cataloguePath: string;
+  /** Analysis processes started in this run, replacements for crashed ones included (0 when nothing needed analysing). */
+  workersStarted: number;
 }
 
 /** The worker module beside this one, with this module's own extension (.ts when run from the sources). */
@@ -166,8 +168,6 @@ export async function runBatch(s: BatchSettings): Promise<BatchResult> {
   const now = (s.now ?? (() => new Date()))();
   const version = toolVersion();
   const { logs, skipped } = await findLogs(s.inputs, { cwd: s.cwd, excludeDirs: [outAbs] });
-  // Started now, so that their start-up (about 0.2 s of module loading each) overlaps the hashing and
-  // planning below; those not needed (flights unchanged since the last run) are stopped unused.
   const pool = new WorkerPool<BatchJob, BatchJobOutcome>(s.workerEntry ?? defaultWorkerEntry(), Math.min(s.jobs, logs.length));
   try {
     return await planAndRun(s, logs, skipped, pool, { outAbs, now, version });
@@ -186,17 +186,20 @@ async function planAndRun(
   const bases = uniqueReportBases(logs.map((l) => l.absPath));
   const sideInputs = [s.compass?.file, s.deviation?.file].filter((p): p is string => p !== undefined).map((p) => path.resolve(s.cwd, p));
 
-  // Each log's hash and side files are read PLAN_AT_ONCE at a time: the file-system round trips overlap
-  // (96 small logs: about 0.2 s one by one).
-  const planned: Planned[] = new Array(logs.length);
-  for (let i0 = 0; i0 < logs.length; i0 += PLAN_AT_ONCE) {
-    const batch = logs.slice(i0, i0 + PLAN_AT_ONCE).map((found, k) => planOne(s, found, bases[i0 + k]));
-    (await Promise.all(batch)).forEach((p, k) => (planned[i0 + k] = p));
-  }
-
   const cataloguePath = path.join(outAbs, CATALOGUE_FILE);
   const catalogue = openCatalogue(cataloguePath);
   try {
+    // Each log's hash and side files are read PLAN_AT_ONCE at a time: the file-system round trips overlap
+    // (96 small logs: about 0.2 s one by one). The analysis processes start as soon as one log needs
+    // analysing, so that their start-up (about 0.2 s of module loading each) overlaps the rest of the
+    // planning; a re-run where nothing changed starts none.
+    const planned: Planned[] = new Array(logs.length);
+    for (let i0 = 0; i0 < logs.length; i0 += PLAN_AT_ONCE) {
+      const chunk = await Promise.all(logs.slice(i0, i0 + PLAN_AT_ONCE).map((found, k) => planOne(s, found, bases[i0 + k])));
+      chunk.forEach((p, k) => (planned[i0 + k] = p));
+      if (chunk.some((p) => p.readError === undefined && !p.sideError && keptFromLastRun(p, catalogue, s.force === true, outAbs, version) === undefined)) pool.warm();
+    }
+
     return await runPlanned(s, planned, skipped, catalogue, pool, { outAbs, now, version, sideInputs });
   } finally {
     catalogue.close();
@@ -237,6 +240,18 @@ async function planOne(s: BatchSettings, found: FoundLog, base: string): Promise
     sideError: sideError?.error ?? null,
   });
   return { found, base, sha, tags: { ...tags, aircraft, pilot }, plan, sideError, optionsSha, readError };
+}
+
+/**
+ * The catalogue's row for a planned log when the last run's result stands: same content, options and tool
+ * version, not forced, and either its outputs are still there under the same name or it failed on its
+ * input (a worker crash is always tried again).
+ */
+function keptFromLastRun(p: Planned, catalogue: FlightCatalogue, force: boolean, outAbs: string, version: string): CatalogueRow | undefined {
+  const prev = catalogue.get(p.sha);
+  if (prev === undefined || force || prev.optionsSha256 !== p.optionsSha || prev.toolVersion !== version) return undefined;
+  const stands = prev.status === 'ok' ? prev.reportBase === p.base && outputsExist(outAbs, p.base) : prev.errorKind !== 'worker';
+  return stands ? prev : undefined;
 }
 
 function outputsExist(outAbs: string, base: string): boolean {
@@ -284,11 +299,8 @@ async function runPlanned(
       return;
     }
     firstOfSha.set(p.sha, i);
-    const prev = catalogue.get(p.sha);
-    const same = prev !== undefined && prev.optionsSha256 === p.optionsSha && prev.toolVersion === ctx.version;
-    const keep =
-      same && !s.force && (prev.status === 'ok' ? prev.reportBase === p.base && outputsExist(ctx.outAbs, p.base) : prev.errorKind !== 'worker');
-    if (keep) flights[i] = { inputPath: p.found.path, run: 'unchanged', note: '', row: { ...prev, inputPath: p.found.path } };
+    const prev = keptFromLastRun(p, catalogue, s.force === true, ctx.outAbs, ctx.version);
+    if (prev) flights[i] = { inputPath: p.found.path, run: 'unchanged', note: '', row: { ...prev, inputPath: p.found.path } };
     else if (p.sideError) failNow.push(i);
     else toAnalyse.push(i);
   });
@@ -393,5 +405,6 @@ async function runPlanned(
     overviewPath,
     csvPath,
     cataloguePath: catalogue.file,
+    workersStarted: pool.startedCount,
   };
 }

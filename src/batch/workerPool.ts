@@ -23,9 +23,9 @@ interface Run<J, R> {
 
 /**
  * Analysis processes started from `entry` (a module that answers each message `{ id, job }` with one
- * message `{ id, outcome }`), started when the pool is made so that their start-up overlaps whatever the
- * caller does before `run` (the batch hashes and plans its inputs meanwhile). When there are at least as
- * many processes as processors, each compiles in line (analysisProcess.ts says why).
+ * message `{ id, outcome }`): by `warm`, so that their start-up overlaps whatever the caller still does
+ * before `run` (the batch plans the rest of its inputs meanwhile), else by `run`. When there are at least
+ * as many processes as processors, each compiles in line (analysisProcess.ts says why).
  */
 export class WorkerPool<J, R> {
   private readonly live = new Set<Slot>();
@@ -34,14 +34,24 @@ export class WorkerPool<J, R> {
   private active: Run<J, R> | undefined;
   private closed = false;
 
-  /** @param size 0..64 processes to start now (`run` starts one when there are none) */
+  /** @param size 0..64 processes (`run` starts one when there are none) */
   constructor(
     private readonly entry: URL,
     private readonly size: number,
     processors = os.availableParallelism(),
   ) {
     this.inLineCompile = size >= processors;
-    for (let k = 0; k < size; k++) this.spawn();
+  }
+
+  /** Processes started so far, replacements included. */
+  get startedCount(): number {
+    return this.started.length;
+  }
+
+  /** Starts the pool's processes now, if not yet started. */
+  warm(): void {
+    if (this.closed) return;
+    while (this.started.length < this.size) this.spawn();
   }
 
   /**

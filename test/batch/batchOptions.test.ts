@@ -96,6 +96,31 @@ describe('copies of one log', () => {
   });
 });
 
+describe('analysis processes', () => {
+  it('start for the first run and not at all for a re-run where nothing changed', async () => {
+    const d = tempDir('cd-batch-procs-');
+    writeLessonGpx(path.join(d, 'logs', 'a.gpx'), { t0: utc(2026, 5, 4), seed: 21, straightS: 30 });
+    writeLessonGpx(path.join(d, 'logs', 'b.gpx'), { t0: utc(2026, 5, 5), seed: 22, straightS: 30 });
+    const marker = path.join(d, 'started.txt');
+    writeFileSync(marker, '');
+    const started = () => readFileSync(marker, 'utf8').split('\n').filter((l) => l !== '').length;
+    const settings = { inputs: ['logs'], outDir: 'out', cwd: d, jobs: 2, wind: { kind: 'calm' as const }, workerEntry: new URL('./markerWorker.ts', import.meta.url) };
+    process.env.CD_TEST_MARKER = marker;
+    try {
+      const first = await runBatch(settings);
+      expect(first.flights.map((f) => f.run)).toEqual(['analysed', 'analysed']);
+      expect(first.workersStarted).toBe(2);
+      expect(started()).toBe(2);
+      const again = await runBatch(settings);
+      expect(again.flights.map((f) => f.run)).toEqual(['unchanged', 'unchanged']);
+      expect(again.workersStarted).toBe(0);
+      expect(started()).toBe(2);
+    } finally {
+      delete process.env.CD_TEST_MARKER;
+    }
+  });
+});
+
 describe('a bad tags side file', () => {
   it('fails only its flight, naming the side file, without stopping the batch', async () => {
     const d = tempDir('cd-batch-tags-');
