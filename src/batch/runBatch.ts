@@ -142,6 +142,8 @@ interface Planned {
   sideError?: { error: string; errorKind: FailureKind };
   optionsSha: string;
   readError?: string;
+  /** The catalogue's row when the last run's result stands (keptFromLastRun), looked up once while planning. */
+  kept?: CatalogueRow;
 }
 
 /**
@@ -196,8 +198,11 @@ async function planAndRun(
     const planned: Planned[] = new Array(logs.length);
     for (let i0 = 0; i0 < logs.length; i0 += PLAN_AT_ONCE) {
       const chunk = await Promise.all(logs.slice(i0, i0 + PLAN_AT_ONCE).map((found, k) => planOne(s, found, bases[i0 + k])));
-      chunk.forEach((p, k) => (planned[i0 + k] = p));
-      if (chunk.some((p) => p.readError === undefined && !p.sideError && keptFromLastRun(p, catalogue, s.force === true, outAbs, version) === undefined)) pool.warm();
+      chunk.forEach((p, k) => {
+        if (p.readError === undefined) p.kept = keptFromLastRun(p, catalogue, s.force === true, outAbs, version);
+        planned[i0 + k] = p;
+      });
+      if (chunk.some((p) => p.readError === undefined && !p.sideError && !p.kept)) pool.warm();
     }
 
     return await runPlanned(s, planned, skipped, catalogue, pool, { outAbs, now, version, sideInputs });
@@ -299,8 +304,7 @@ async function runPlanned(
       return;
     }
     firstOfSha.set(p.sha, i);
-    const prev = keptFromLastRun(p, catalogue, s.force === true, ctx.outAbs, ctx.version);
-    if (prev) flights[i] = { inputPath: p.found.path, run: 'unchanged', note: '', row: { ...prev, inputPath: p.found.path } };
+    if (p.kept) flights[i] = { inputPath: p.found.path, run: 'unchanged', note: '', row: { ...p.kept, inputPath: p.found.path } };
     else if (p.sideError) failNow.push(i);
     else toAnalyse.push(i);
   });

@@ -16,7 +16,6 @@ interface Run<J, R> {
   onDone: (index: number, result: PoolResult<R>) => void;
   next: number;
   finished: number;
-  failed: boolean;
   resolve: () => void;
   reject: (err: unknown) => void;
 }
@@ -63,7 +62,7 @@ export class WorkerPool<J, R> {
   run(jobs: readonly J[], onDone: (index: number, result: PoolResult<R>) => void): Promise<void> {
     if (this.closed) return Promise.reject(new Error('the worker pool is closed'));
     return new Promise((resolve, reject) => {
-      const r: Run<J, R> = { jobs, onDone, next: 0, finished: 0, failed: false, resolve, reject };
+      const r: Run<J, R> = { jobs, onDone, next: 0, finished: 0, resolve, reject };
       this.active = r;
       if (jobs.length === 0) {
         void this.close();
@@ -96,7 +95,7 @@ export class WorkerPool<J, R> {
 
   private give(s: Slot): void {
     const r = this.active;
-    if (!r || r.failed || r.next >= r.jobs.length) {
+    if (!r || this.closed || r.next >= r.jobs.length) {
       s.current = -1;
       this.live.delete(s);
       s.proc.stop();
@@ -115,16 +114,14 @@ export class WorkerPool<J, R> {
   }
 
   private onExit(s: Slot, why: string | undefined): void {
-    const wasLive = this.live.delete(s);
+    this.live.delete(s);
     const index = s.current;
     s.current = -1;
     const r = this.active;
-    if (!r || r.failed || index < 0) {
-      // A process that died before it was given work is replaced when the run starts.
-      return;
-    }
-    if (!this.complete(index, { kind: 'crash', message: why ?? 'the analysis worker exited' })) return;
-    if (wasLive && !this.closed && r.next < r.jobs.length) {
+    // Closed (all done, or onDone threw): nothing to report. Without a job: a process that died before it
+    // was given work is replaced when the run starts.
+    if (!r || this.closed || index < 0) return;
+    if (this.complete(index, { kind: 'crash', message: why ?? 'the analysis worker exited' }) && !this.closed && r.next < r.jobs.length) {
       this.give(this.spawn());
     }
   }
@@ -134,7 +131,6 @@ export class WorkerPool<J, R> {
     try {
       r.onDone(index, result);
     } catch (err) {
-      r.failed = true;
       void this.close();
       r.reject(err);
       return false;
