@@ -1,6 +1,7 @@
 // Which reader a file needs, decided from its content (never from its name).
 import { ParseError } from '../errors.js';
 import type { LogFormat } from '../log/flightLog.js';
+import { headerTokens, roleOfHeader } from './csvColumns.js';
 import { decodeText, hasUtf16Bom } from './decodeText.js';
 
 /** Human list of what can be read, for hints. */
@@ -65,6 +66,28 @@ function looksDelimited(lines: string[]): boolean {
   return false;
 }
 
+const DELIMITER_NAMES: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab', '|': 'bar' };
+
+/**
+ * For text that is not a log: a first line that splits on one delimiter into ≥ 3 columns, two of them named as
+ * latitude and longitude (roleOfHeader), and the first later line (1-based, blank and '#' lines counted) that
+ * splits into a different number of fields. A ragged CSV log then gets that line instead of "not a flight log".
+ */
+function raggedRowOfCsvHeader(text: string): { line: number; fields: number; headerFields: number; delimiter: string } | undefined {
+  const lines = text.split(/\r\n|\n|\r/).slice(0, 200);
+  const body = lines.map((l, k) => ({ l, line: k + 1 })).filter(({ l }) => l.trim().length > 0 && !l.startsWith('#'));
+  if (body.length < 2) return undefined;
+  for (const d of [',', ';', '\t', '|']) {
+    const header = body[0].l.split(d);
+    if (header.length < 3) continue;
+    const roles = new Set(header.map((h) => roleOfHeader(new Set(headerTokens(h)))));
+    if (!roles.has('lat') || !roles.has('lon')) continue;
+    const ragged = body.slice(1).find(({ l }) => l.split(d).length !== header.length);
+    if (ragged) return { line: ragged.line, fields: ragged.l.split(d).length, headerFields: header.length, delimiter: d };
+  }
+  return undefined;
+}
+
 /**
  * Decides the format of a text log from its first part (`head`, e.g. the first 64 kB):
  * XML whose root is <gpx> → gpx, <kml> → kml; an IGC A record followed by B fixes → igc;
@@ -92,6 +115,14 @@ export function detectTextFormat(head: string): LogFormat {
   const nmea = sample.filter((l) => NMEA_SENTENCE.test(l)).length;
   if (nmea > 0 && nmea >= sample.length / 2) return 'nmea';
   if (looksDelimited(sample)) return 'csv';
+  const ragged = raggedRowOfCsvHeader(text);
+  if (ragged) {
+    const { line, fields, headerFields, delimiter } = ragged;
+    throw new ParseError(`the header names latitude and longitude in ${headerFields} ${DELIMITER_NAMES[delimiter]}-separated columns, but this row has ${fields} field(s)`, {
+      line,
+      hint: 'give every row one value per header column, split by the same delimiter; quote a value that holds the delimiter',
+    });
+  }
   throw new ParseError('not a flight log this tool can read', { hint: SUPPORTED_FORMATS_HINT });
 }
 

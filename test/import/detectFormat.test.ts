@@ -43,6 +43,20 @@ describe('detectFormat: by content, not by file name', () => {
     expect(() => detectTextFormat('Dear pilot, hello\n')).toThrow(/not a flight log/);
   });
 
+  it('names the first ragged row of a delimited log whose header names latitude and longitude (common practice: say where, not only "not a log")', () => {
+    const text = '# logger v2\ntime,lat,lon\n\nfoo,bar\nbaz,qux\n2026-05-04T10:00:01Z,52.1,0.1\n';
+    try {
+      detectTextFormat(text);
+      expect.unreachable();
+    } catch (err) {
+      expect(err).toBeInstanceOf(ParseError);
+      expect((err as ParseError).line).toBe(4);
+      expect((err as ParseError).message).toContain('3 comma-separated columns, but this row has 2 field(s)');
+    }
+    // Without latitude and longitude columns the text is prose or another table: the plain refusal.
+    expect(() => detectTextFormat('name,club,town\nHarrowgate,Fen\n')).toThrow(/not a flight log this tool can read/);
+  });
+
   it('refuses binary junk with a hint listing the supported formats', () => {
     const junk = readFileSync(new URL('../fixtures/import/binary-junk.bin', import.meta.url));
     try {
