@@ -2,6 +2,7 @@
 import { ParseError } from '../errors.js';
 import type { LogFormat } from '../log/flightLog.js';
 import { headerTokens, roleOfHeader } from './csvColumns.js';
+import { CSV_DELIMITERS, type CsvDelimiter } from './csvDialect.js';
 import { decodeText, hasUtf16Bom } from './decodeText.js';
 
 /** Human list of what can be read, for hints. */
@@ -53,9 +54,9 @@ const IGC_B_RECORD = /^B\d{6}\d{7}[NS]\d{8}[EW][AV]/;
  */
 function looksDelimited(lines: string[]): boolean {
   const body = lines.filter((l) => !l.startsWith('#'));
-  if (body.length === 1) return [',', ';', '\t', '|'].some((d) => body[0].split(d).length >= 3);
+  if (body.length === 1) return CSV_DELIMITERS.some((d) => body[0].split(d).length >= 3);
   if (body.length < 2) return false;
-  for (const d of [',', ';', '\t', '|']) {
+  for (const d of CSV_DELIMITERS) {
     const fields = (l: string) => l.split(d).length;
     const n = fields(body[0]);
     if (n < 2) continue;
@@ -66,18 +67,18 @@ function looksDelimited(lines: string[]): boolean {
   return false;
 }
 
-const DELIMITER_NAMES: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab', '|': 'bar' };
+const DELIMITER_NAMES: Record<CsvDelimiter, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab', '|': 'bar' };
 
 /**
  * For text that is not a log: a first line that splits on one delimiter into ≥ 3 columns, two of them named as
  * latitude and longitude (roleOfHeader), and the first later line (1-based, blank and '#' lines counted) that
  * splits into a different number of fields. A ragged CSV log then gets that line instead of "not a flight log".
  */
-function raggedRowOfCsvHeader(text: string): { line: number; fields: number; headerFields: number; delimiter: string } | undefined {
+function raggedRowOfCsvHeader(text: string): { line: number; fields: number; headerFields: number; delimiter: CsvDelimiter } | undefined {
   const lines = text.split(/\r\n|\n|\r/).slice(0, 200);
   const body = lines.map((l, k) => ({ l, line: k + 1 })).filter(({ l }) => l.trim().length > 0 && !l.startsWith('#'));
   if (body.length < 2) return undefined;
-  for (const d of [',', ';', '\t', '|']) {
+  for (const d of CSV_DELIMITERS) {
     const header = body[0].l.split(d);
     if (header.length < 3) continue;
     const roles = new Set(header.map((h) => roleOfHeader(new Set(headerTokens(h)))));
